@@ -1,0 +1,30 @@
+import { existsSync, readdirSync, statSync } from 'node:fs';
+import path from 'node:path';
+import { execFileSync } from 'node:child_process';
+
+const SOURCES = ['client', 'shared', 'vite.config.ts', 'package-lock.json'];
+
+function newestMtime(p: string): number {
+  if (!existsSync(p)) return 0;
+  const st = statSync(p);
+  if (!st.isDirectory()) return st.mtimeMs;
+  let newest = 0;
+  for (const entry of readdirSync(p)) {
+    if (entry === 'dist' || entry === 'node_modules') continue;
+    newest = Math.max(newest, newestMtime(path.join(p, entry)));
+  }
+  return newest;
+}
+
+/** Builds the client when its sources are newer than the last build. */
+export function buildClientIfStale(root: string): void {
+  const built = path.join(root, 'client/dist/index.html');
+  const builtAt = existsSync(built) ? statSync(built).mtimeMs : 0;
+  const sourcesAt = Math.max(...SOURCES.map((s) => newestMtime(path.join(root, s))));
+  if (builtAt >= sourcesAt) return;
+  console.log('Building the client (vite build)...');
+  execFileSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], {
+    cwd: root,
+    stdio: 'inherit',
+  });
+}

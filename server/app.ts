@@ -1,0 +1,83 @@
+import express from 'express';
+import helmet from 'helmet';
+import path from 'node:path';
+import fs from 'node:fs';
+import type { Sequelize } from 'sequelize';
+import type { AppConfig } from './config/config';
+import { configurePassport } from './auth/passport-setup';
+import { createSessionMiddleware } from './http/session-middleware';
+import { requireCsrf } from './http/csrf';
+import { apiNotFound, errorHandler } from './http/error-handler';
+import { healthRoutes } from './features/health/health-routes';
+import { sessionRoutes } from './features/session/session-routes';
+import { userRoutes } from './features/users/user-routes';
+import { projectRoutes } from './features/projects/project-routes';
+import type { Logger } from './logger';
+
+export interface AppHandle {
+  app: express.Express;
+  /** Stops background timers owned by the app (session expiry sweeps). */
+  close(): void;
+}
+
+/** Builds the Express app: security headers, sessions, the API, then the built client. */
+export function createApp(config: AppConfig, sequelize: Sequelize, logger: Logger): AppHandle {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          // web-ifc and three need WebAssembly in the browser; nothing wider is allowed.
+          'script-src': ["'self'", "'wasm-unsafe-eval'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'worker-src': ["'self'", 'blob:'],
+        },
+      },
+    }),
+  );
+  if (config.logRequests) {
+    app.use((req, res, next) => {
+      const started = Date.now();
+      res.on('finish', () => logger.info(`${req.method} ${req.originalUrl} ${res.statusCode} ${Date.now() - started}ms`));
+      next();
+    });
+  }
+
+  // Health is answered before sessions so it works while the database is down.
+  app.use('/api/health', healthRoutes(sequelize));
+
+  const api = express.Router();
+  const sessions = createSessionMiddleware(sequelize, config);
+  const pp = configurePassport();
+  api.use(express.json({ limit: '1mb' }));
+  api.use(sessions.middleware);
+  api.use(pp.session());
+  api.use(requireCsrf);
+  api.use('/session', sessionRoutes(pp, config));
+  api.use('/users', userRoutes(sequelize));
+  api.use('/projects', projectRoutes(sequelize));
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  const clientDist = path.resolve(config.clientDist);
+  if (fs.existsSync(path.join(clientDist, 'index.html'))) {
+    app.use(express.static(clientDist, { index: false, maxAge: '1h', setHeaders: noCacheForHtml }));
+    // Client-side routes: any other GET serves the app shell.
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(clientDist, 'index.html'));
+    });
+  } else {
+    logger.warn(`No built client at ${clientDist}; only the API is served.`);
+  }
+
+  app.use(errorHandler((msg, err) => logger.error(msg, err)));
+  return { app, close: sessions.stop };
+}
+
+function noCacheForHtml(res: express.Response, filePath: string): void {
+  if (filePath.endsWith('.html')) res.setHeader('Cache-Control', 'no-cache');
+}

@@ -1,0 +1,80 @@
+import { z } from 'zod';
+
+/** Session secret shipped for development only; production refuses to start with it. */
+export const DEV_SESSION_SECRET = 'gaugeline-development-secret-change-me';
+
+// 0 asks the OS for a free port (tests use it).
+const port = z.coerce.number().int().min(0).max(65535);
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  HOST: z.string().min(1).default('127.0.0.1'),
+  PORT: port.default(8080),
+  DB_HOST: z.string().min(1).default('127.0.0.1'),
+  DB_PORT: port.default(3407),
+  DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only').default('gaugeline'),
+  DB_USER: z.string().min(1).default('gaugeline'),
+  DB_PASSWORD: z.string().default(''),
+  DB_POOL_MAX: z.coerce.number().int().min(1).max(200).default(10),
+  SESSION_SECRET: z.string().min(16, 'must be at least 16 characters').default(DEV_SESSION_SECRET),
+  SESSION_MAX_AGE_HOURS: z.coerce.number().positive().max(24 * 90).default(12),
+  DATA_DIR: z.string().min(1).default('.data'),
+  CLIENT_DIST: z.string().min(1).default('client/dist'),
+  DEMO_SEED: z.enum(['on', 'off']).default('on'),
+  SIGN_IN_LIMIT: z.coerce.number().int().min(1).max(10_000).default(10),
+  SIGN_IN_WINDOW_SECONDS: z.coerce.number().int().min(1).max(86_400).default(900),
+  LOG_REQUESTS: z.enum(['on', 'off']).default('off'),
+});
+
+export interface AppConfig {
+  env: 'development' | 'test' | 'production';
+  host: string;
+  port: number;
+  db: { host: string; port: number; name: string; user: string; password: string; poolMax: number };
+  session: { secret: string; maxAgeMs: number; secureCookie: boolean };
+  dataDir: string;
+  clientDist: string;
+  demoSeed: boolean;
+  signInLimit: { max: number; windowMs: number };
+  logRequests: boolean;
+}
+
+export class ConfigError extends Error {
+  constructor(public readonly problems: string[]) {
+    super(`Configuration is not valid:\n${problems.map((p) => `  - ${p}`).join('\n')}`);
+    this.name = 'ConfigError';
+  }
+}
+
+/**
+ * Reads and validates the whole configuration once, at start-up. Every problem is
+ * collected so a person can fix them all in one go, rather than one per restart.
+ */
+export function loadConfig(env: Record<string, string | undefined> = process.env): AppConfig {
+  // Empty strings mean "unset" so that `PORT= npm start` falls back to the default.
+  const cleaned = Object.fromEntries(Object.entries(env).filter(([, v]) => v !== undefined && v !== ''));
+  const parsed = envSchema.safeParse(cleaned);
+  if (!parsed.success) {
+    throw new ConfigError(parsed.error.issues.map((i) => `${i.path.join('.') || 'environment'}: ${i.message}`));
+  }
+  const e = parsed.data;
+  const problems: string[] = [];
+  if (e.NODE_ENV === 'production') {
+    if (e.SESSION_SECRET === DEV_SESSION_SECRET) problems.push('SESSION_SECRET: set a secret of your own in production');
+    if (e.DEMO_SEED === 'on' && env.DEMO_SEED !== undefined) problems.push('DEMO_SEED: demo accounts are not allowed in production');
+  }
+  if (problems.length) throw new ConfigError(problems);
+  return {
+    env: e.NODE_ENV,
+    host: e.HOST,
+    port: e.PORT,
+    db: { host: e.DB_HOST, port: e.DB_PORT, name: e.DB_NAME, user: e.DB_USER, password: e.DB_PASSWORD, poolMax: e.DB_POOL_MAX },
+    session: { secret: e.SESSION_SECRET, maxAgeMs: e.SESSION_MAX_AGE_HOURS * 3_600_000, secureCookie: e.NODE_ENV === 'production' },
+    dataDir: e.DATA_DIR,
+    clientDist: e.CLIENT_DIST,
+    // Production never seeds demo data, whatever DEMO_SEED says.
+    demoSeed: e.NODE_ENV !== 'production' && e.DEMO_SEED === 'on',
+    signInLimit: { max: e.SIGN_IN_LIMIT, windowMs: e.SIGN_IN_WINDOW_SECONDS * 1000 },
+    logRequests: e.LOG_REQUESTS === 'on',
+  };
+}

@@ -1,0 +1,27 @@
+import { Umzug, SequelizeStorage } from 'umzug';
+import type { Sequelize } from 'sequelize';
+import * as m0001 from './migrations/0001-foundation';
+
+// Migrations are listed explicitly (not globbed) so that the same list works under
+// tsx, vitest and a bundled build, and the order is reviewed in code.
+const MIGRATIONS = [{ name: '0001-foundation', module: m0001 }];
+
+export function createMigrator(sequelize: Sequelize) {
+  const qi = sequelize.getQueryInterface();
+  return new Umzug({
+    migrations: MIGRATIONS.map(({ name, module }) => ({
+      name,
+      up: () => module.up({ context: qi }),
+      down: () => module.down({ context: qi }),
+    })),
+    context: qi,
+    storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
+    logger: undefined,
+  });
+}
+
+/** Applies pending migrations; returns the names applied. Never alters tables by model sync. */
+export async function migrateToLatest(sequelize: Sequelize): Promise<string[]> {
+  const applied = await createMigrator(sequelize).up();
+  return applied.map((m) => m.name);
+}

@@ -1,0 +1,79 @@
+import type { Server } from 'node:http';
+import { loadConfig, ConfigError, type AppConfig } from './config/config';
+import { createDatabase } from './db/database';
+import { migrateToLatest } from './db/migrate';
+import { countDemoAccounts, seedDemoIfEmpty } from './db/seed/demo-seed';
+import { createApp } from './app';
+import { createLogger } from './logger';
+
+export interface RunningServer {
+  url: string;
+  config: AppConfig;
+  stop(): Promise<void>;
+}
+
+/** Start-up: config, database, migrations, demo seed, HTTP. Used by npm start and by tests. */
+export async function startServer(env: Record<string, string | undefined> = process.env, quiet = false): Promise<RunningServer> {
+  const config = loadConfig(env);
+  const logger = createLogger(quiet);
+  const sequelize = createDatabase(config.db);
+  await sequelize.authenticate();
+  const applied = await migrateToLatest(sequelize);
+  if (applied.length) logger.info(`applied migrations: ${applied.join(', ')}`);
+  if (config.env === 'production' && (await countDemoAccounts()) > 0) {
+    await sequelize.close();
+    throw new ConfigError(['database: demo accounts exist; remove them before running in production']);
+  }
+  if (config.demoSeed && (await seedDemoIfEmpty(sequelize))) logger.info('seeded the demo project and accounts');
+
+  const handle = createApp(config, sequelize, logger);
+  const server: Server = await new Promise((resolve, reject) => {
+    const s = handle.app.listen(config.port, config.host, () => resolve(s));
+    s.once('error', reject);
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.port;
+  const url = `http://${config.host}:${port}`;
+  return {
+    url,
+    config,
+    async stop() {
+      handle.close();
+      const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeAllConnections();
+      await closed;
+      await sequelize.close();
+    },
+  };
+}
+
+async function main(): Promise<void> {
+  let running: RunningServer;
+  try {
+    running = await startServer();
+  } catch (err) {
+    if (err instanceof ConfigError) {
+      console.error(err.message);
+      process.exit(78); // EX_CONFIG
+    }
+    throw err;
+  }
+  console.log(`Gaugeline is running at ${running.url}`);
+  let stopping = false;
+  const shutdown = async (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    console.log(`${signal}: stopping Gaugeline`);
+    await running.stop();
+    process.exit(0);
+  };
+  process.on('SIGINT', () => void shutdown('SIGINT'));
+  process.on('SIGTERM', () => void shutdown('SIGTERM'));
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) {
+  main().catch((err) => {
+    console.error(err instanceof Error ? err.stack : err);
+    process.exit(1);
+  });
+}

@@ -1,0 +1,7 @@
+export * from './roles';
+export * from './errors';
+export * from './session';
+export * from './users';
+export * from './projects';
+export * from './health';
+export * from './cautions';
