@@ -10,7 +10,10 @@ export interface TestApp {
   url: string;
   server: RunningServer;
   dbName: string;
+  /** Stops the server and drops its database. */
   stop(): Promise<void>;
+  /** Drops the database only (for tests that stopped the server themselves). */
+  dropDatabase(): Promise<void>;
 }
 
 /**
@@ -46,5 +49,6 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
       await server.stop();
       await db.drop();
     },
+    dropDatabase: () => db.drop(),
   };
 }

@@ -1,0 +1,148 @@
+/**
+ * Walks an element's representation items without asking web-ifc to tessellate anything
+ * (one malformed entity can make the geometry kernel loop forever). It collects extruded
+ * solids, boolean cutters and, for faceted bodies, the bounding box of their vertices —
+ * all in the element's placement frame, mm.
+ */
+import type { ModelContext } from './model-context.ts';
+import { IDENTITY, type Mat4, multiply, transformPoint } from './mat4.ts';
+import { axisPlacement, direction, pointMm, transformOperator } from './placements.ts';
+import { enumValue, num, ref, refs, str } from './step-values.ts';
+import type { Vec3 } from './types.ts';
+
+export interface SweptSolid {
+  solidId: number;
+  /** Placement frame ← solid Position. */
+  toPlacement: Mat4;
+  profileId: number | undefined;
+  /** Extrusion direction in the solid's Position frame (unit). */
+  dir: Vec3;
+  depth: number;
+}
+
+export interface Body {
+  extrusions: SweptSolid[];
+  cutters: SweptSolid[];
+  /** Vertices' box of faceted items, placement frame. */
+  brepBox: { min: Vec3; max: Vec3 } | null;
+  axisLine: [Vec3, Vec3] | null;
+}
+
+const MAX_BREP_POINTS = 20000;
+
+export function emptyBody(): Body {
+  return { extrusions: [], cutters: [], brepBox: null, axisLine: null };
+}
+
+function sweptSolid(ctx: ModelContext, id: number, t: Mat4): SweptSolid {
+  const s = ctx.line(id);
+  return {
+    solidId: id,
+    toPlacement: multiply(t, axisPlacement(ctx, ref(s.Position))),
+    profileId: ref(s.SweptArea),
+    dir: direction(ctx, ref(s.ExtrudedDirection), [0, 0, 1]),
+    depth: ctx.mm(num(s.Depth)) ?? 0,
+  };
+}
+
+class Walker {
+  body = emptyBody();
+  private points = 0;
+  constructor(private ctx: ModelContext) {}
+
+  item(id: number | undefined, t: Mat4, asCutter: boolean, depth: number): void {
+    const ctx = this.ctx;
+    if (id === undefined || depth > 32) return;
+    const cls = ctx.className(id).toUpperCase();
+    const l = ctx.line(id);
+    if (!l) return;
+    switch (cls) {
+      case 'IFCEXTRUDEDAREASOLID':
+      case 'IFCEXTRUDEDAREASOLIDTAPERED':
+        (asCutter ? this.body.cutters : this.body.extrusions).push(sweptSolid(ctx, id, t));
+        return;
+      case 'IFCBOOLEANRESULT':
+      case 'IFCBOOLEANCLIPPINGRESULT': {
+        const op = enumValue(l.Operator);
+        this.item(ref(l.FirstOperand), t, asCutter, depth + 1);
+        if (op === 'DIFFERENCE') this.item(ref(l.SecondOperand), t, !asCutter, depth + 1);
+        else if (op === 'UNION') this.item(ref(l.SecondOperand), t, asCutter, depth + 1);
+        return;
+      }
+      case 'IFCMAPPEDITEM': {
+        const src = ctx.line(ref(l.MappingSource));
+        if (!src) return;
+        const m = multiply(t, multiply(transformOperator(ctx, ref(l.MappingTarget)), axisPlacement(ctx, ref(src.MappingOrigin))));
+        const rep = ctx.line(ref(src.MappedRepresentation));
+        for (const it of refs(rep?.Items)) this.item(it, m, asCutter, depth + 1);
+        return;
+      }
+      case 'IFCFACETEDBREP':
+      case 'IFCFACETEDBREPWITHVOIDS':
+        if (!asCutter) this.brep(ref(l.Outer), t);
+        return;
+      default:
+        return;
+    }
+  }
+
+  private brep(shellId: number | undefined, t: Mat4): void {
+    const ctx = this.ctx;
+    const shell = ctx.line(shellId);
+    for (const faceId of refs(shell?.CfsFaces)) {
+      for (const boundId of refs(ctx.line(faceId)?.Bounds)) {
+        const loop = ctx.line(ref(ctx.line(boundId)?.Bound));
+        for (const pid of refs(loop?.Polygon)) {
+          if (this.points++ > MAX_BREP_POINTS) return;
+          this.extend(transformPoint(t, pointMm(ctx, pid)));
+        }
+      }
+    }
+  }
+
+  private extend(p: Vec3): void {
+    const b = this.body;
+    if (!b.brepBox) b.brepBox = { min: [...p] as Vec3, max: [...p] as Vec3 };
+    else for (let i = 0; i < 3; i++) {
+      b.brepBox.min[i] = Math.min(b.brepBox.min[i], p[i]);
+      b.brepBox.max[i] = Math.max(b.brepBox.max[i], p[i]);
+    }
+  }
+}
+
+/** Reads the 'Body' (or first) shape representation and the 'Axis' curve of a product. */
+export function readBody(ctx: ModelContext, productShapeId: number | undefined): Body {
+  const walker = new Walker(ctx);
+  const shape = ctx.line(productShapeId);
+  const reps = refs(shape?.Representations).map((id) => ({ id, l: ctx.line(id) })).filter((r) => r.l);
+  const ident = (r: { l: any }) => (str(r.l.RepresentationIdentifier) ?? '').toLowerCase();
+  const body = reps.find((r) => ident(r) === 'body') ?? reps.find((r) => !['axis', 'box', 'footprint', 'reference', 'annotation'].includes(ident(r)));
+  if (body) for (const it of refs(body.l.Items)) walker.item(it, IDENTITY, false, 0);
+  const axis = reps.find((r) => ident(r) === 'axis');
+  if (axis) walker.body.axisLine = readAxisCurve(ctx, refs(axis.l.Items)[0]);
+  return walker.body;
+}
+
+function readAxisCurve(ctx: ModelContext, id: number | undefined): [Vec3, Vec3] | null {
+  const cls = ctx.className(id).toUpperCase();
+  const l = ctx.line(id);
+  if (cls === 'IFCPOLYLINE') {
+    const pts = refs(l?.Points);
+    if (pts.length >= 2) return [pointMm(ctx, pts[0]), pointMm(ctx, pts[pts.length - 1])];
+  }
+  if (cls === 'IFCTRIMMEDCURVE') {
+    const basis = ctx.line(ref(l?.BasisCurve));
+    if (basis && ctx.isA(ref(l?.BasisCurve), 'IfcLine')) {
+      const p0 = pointMm(ctx, ref(basis.Pnt));
+      const vec = ctx.line(ref(basis.Dir));
+      const d = direction(ctx, ref(vec?.Orientation), [0, 0, 1]);
+      const mag = ctx.mm(num(vec?.Magnitude)) ?? 1;
+      const trim = (x: any) => (Array.isArray(x) ? x.map((v: any) => num(v)).find((v: any) => v !== undefined) : undefined) ?? 0;
+      const t1 = trim(l.Trim1);
+      const t2 = trim(l.Trim2);
+      const at = (t: number): Vec3 => [p0[0] + d[0] * mag * t, p0[1] + d[1] * mag * t, p0[2] + d[2] * mag * t];
+      return [at(t1), at(t2)];
+    }
+  }
+  return null;
+}

@@ -1,0 +1,99 @@
+/**
+ * Property sets as plain maps. Values keep their IFC measure type so callers can convert
+ * with the file's units (a length property is in the file length unit, a force in its force unit).
+ */
+import type { ModelContext } from './model-context.ts';
+import type { RelationsIndex } from './relations-index.ts';
+import { num, refs, str } from './step-values.ts';
+
+export interface PropValue {
+  value: number | string | boolean | null;
+  /** e.g. 'IFCLENGTHMEASURE', 'IFCFORCEMEASURE', 'IFCLABEL' */
+  measure: string | null;
+}
+
+export type PropertySets = Map<string, Map<string, PropValue>>;
+
+function readValue(v: any): PropValue {
+  if (v == null) return { value: null, measure: null };
+  const measure = typeof v === 'object' && typeof v.name === 'string' ? v.name.toUpperCase() : null;
+  const n = num(v);
+  if (n !== undefined && measure !== 'IFCLABEL' && measure !== 'IFCTEXT' && measure !== 'IFCIDENTIFIER') {
+    return { value: n, measure };
+  }
+  const raw = typeof v === 'object' ? v.value : v;
+  if (typeof raw === 'boolean') return { value: raw, measure };
+  const s = str(v);
+  if (s === '.T.' || s === 'T') return { value: true, measure };
+  if (s === '.F.' || s === 'F') return { value: false, measure };
+  return { value: s, measure };
+}
+
+/** Reads one IfcPropertySet / IfcElementQuantity / IfcMaterialProperties / IfcProfileProperties. */
+export function readPropertyContainer(ctx: ModelContext, id: number): { name: string; props: Map<string, PropValue> } | null {
+  const p = ctx.line(id);
+  if (!p) return null;
+  const name = str(p.Name) ?? '';
+  const props = new Map<string, PropValue>();
+  for (const pid of refs(p.HasProperties ?? p.Properties ?? p.Quantities)) {
+    const prop = ctx.line(pid);
+    if (!prop) continue;
+    const pname = str(prop.Name);
+    if (!pname) continue;
+    if (prop.NominalValue !== undefined) props.set(pname, readValue(prop.NominalValue));
+    else if (prop.LengthValue !== undefined) props.set(pname, { value: num(prop.LengthValue) ?? null, measure: 'IFCLENGTHMEASURE' });
+    else if (prop.AreaValue !== undefined) props.set(pname, { value: num(prop.AreaValue) ?? null, measure: 'IFCAREAMEASURE' });
+    else if (prop.CountValue !== undefined) props.set(pname, { value: num(prop.CountValue) ?? null, measure: 'IFCCOUNTMEASURE' });
+    else if (prop.WeightValue !== undefined) props.set(pname, { value: num(prop.WeightValue) ?? null, measure: 'IFCMASSMEASURE' });
+    else if (prop.VolumeValue !== undefined) props.set(pname, { value: num(prop.VolumeValue) ?? null, measure: 'IFCVOLUMEMEASURE' });
+  }
+  return { name, props };
+}
+
+/** Occurrence sets first; type sets fill in names the occurrence does not have. */
+export function propertySetsOf(ctx: ModelContext, ix: RelationsIndex, elementId: number): PropertySets {
+  const out: PropertySets = new Map();
+  const add = (ids: number[] | undefined) => {
+    for (const id of ids ?? []) {
+      const c = readPropertyContainer(ctx, id);
+      if (!c) continue;
+      const existing = out.get(c.name);
+      if (!existing) out.set(c.name, c.props);
+      else for (const [k, v] of c.props) if (!existing.has(k)) existing.set(k, v);
+    }
+  };
+  add(ix.psets.get(elementId));
+  const typeId = ix.typeOf.get(elementId);
+  if (typeId !== undefined) add(ix.psets.get(typeId));
+  return out;
+}
+
+/** First property with one of these names in any set (case-insensitive), for vendor sets whose names vary. */
+export function findProperty(psets: PropertySets, names: string[]): PropValue | undefined {
+  const wanted = names.map((n) => n.toLowerCase());
+  for (const w of wanted) {
+    for (const props of psets.values()) {
+      for (const [k, v] of props) if (k.toLowerCase() === w && v.value !== null && v.value !== '') return v;
+    }
+  }
+  return undefined;
+}
+
+const LENGTH_MEASURES = new Set(['IFCLENGTHMEASURE', 'IFCPOSITIVELENGTHMEASURE', 'IFCNONNEGATIVELENGTHMEASURE']);
+
+/** A length-like property in mm; plain numbers without a measure are taken as file lengths. */
+export function lengthMm(ctx: ModelContext, v: PropValue | undefined): number | undefined {
+  if (!v || typeof v.value !== 'number') return undefined;
+  if (v.measure && !LENGTH_MEASURES.has(v.measure) && !v.measure.includes('REAL')) return undefined;
+  return v.value * ctx.units.lengthToMm;
+}
+
+export function forceN(ctx: ModelContext, v: PropValue | undefined): number | undefined {
+  if (!v || typeof v.value !== 'number') return undefined;
+  return v.value * ctx.units.forceToN;
+}
+
+export function pressureMPa(ctx: ModelContext, v: PropValue | undefined): number | undefined {
+  if (!v || typeof v.value !== 'number') return undefined;
+  return v.value * ctx.units.pressureToMPa;
+}
