@@ -1,0 +1,20 @@
+/** Every client route in one place, so links and the router agree. */
+export const paths = {
+  home: '/',
+  signIn: '/sign-in',
+  account: '/account',
+  about: '/about',
+  project: (projectId: number | string) => `/projects/${encodeURIComponent(String(projectId))}`,
+  adminPeople: '/admin/people',
+  adminProjects: '/admin/projects',
+} as const;
+
+/**
+ * Where to go after signing in: only same-app paths are accepted, so a crafted
+ * link cannot send someone to another site.
+ */
+export function safeReturnPath(value: string | null | undefined): string {
+  if (!value || !value.startsWith('/') || value.startsWith('//') || value.startsWith('/\\')) return paths.home;
+  if (value.startsWith(paths.signIn)) return paths.home;
+  return value;
+}

@@ -1,0 +1,11 @@
+export { Button, buttonClass, type ButtonVariant, type ButtonSize } from './button';
+export { TextField } from './text-field';
+export { Select, type SelectOption } from './select';
+export { Table, THead, TBody, Tr, Th, Td, RowHeader } from './table';
+export { Card, Panel } from './panel';
+export { Notice, type NoticeTone } from './notice';
+export { Spinner, LoadingState } from './spinner';
+export { ErrorState, EmptyState } from './states';
+export { Badge, type BadgeTone } from './badge';
+export { ConfirmDialog } from './dialog';
+export { PageHeader } from './page-header';
