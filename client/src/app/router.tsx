@@ -1,0 +1,52 @@
+import { createBrowserRouter } from 'react-router';
+import { RootLayout } from '../routes/root-layout';
+import { RouteError } from '../routes/route-error';
+import { RequireRole, RequireSignedIn } from '../routes/guards';
+import { SignInPage } from '../routes/sign-in-page';
+import { ProjectsPage } from '../routes/projects-page';
+import { ProjectPage } from '../routes/project-page';
+import { AccountPage } from '../routes/account-page';
+import { AdminPeoplePage } from '../routes/admin-people-page';
+import { AdminProjectsPage } from '../routes/admin-projects-page';
+import { AboutPage } from '../routes/about-page';
+import { NotFoundPage } from '../routes/not-found-page';
+
+/**
+ * Routes:
+ *   /sign-in              public
+ *   /about                public: scope and cautions
+ *   /                     projects (create form for admin and engineer)
+ *   /projects/:projectId  project overview
+ *   /account              your details, change password
+ *   /admin/people         admin only
+ *   /admin/projects       admin only (project access)
+ */
+export function createRouter() {
+  return createBrowserRouter([
+    {
+      element: <RootLayout />,
+      errorElement: <RouteError />,
+      children: [
+        { path: 'sign-in', element: <SignInPage /> },
+        { path: 'about', element: <AboutPage /> },
+        {
+          element: <RequireSignedIn />,
+          children: [
+            { index: true, element: <ProjectsPage /> },
+            { path: 'projects/:projectId', element: <ProjectPage /> },
+            { path: 'account', element: <AccountPage /> },
+            {
+              path: 'admin',
+              element: <RequireRole roles={['admin']} />,
+              children: [
+                { path: 'people', element: <AdminPeoplePage /> },
+                { path: 'projects', element: <AdminProjectsPage /> },
+              ],
+            },
+            { path: '*', element: <NotFoundPage /> },
+          ],
+        },
+      ],
+    },
+  ]);
+}
