@@ -1,0 +1,10 @@
+export type { CheckResult, CheckMode, TraceStep, Assumption } from './types.ts';
+export { checkMember, checkMemberRaw } from './check-member.ts';
+export { checkAs4100 } from './as4100.ts';
+export { checkAisc360 } from './aisc360.ts';
+export { checkEn1993 } from './en1993.ts';
+export { ktAs4100 } from './kt-as4100.ts';
+export { betaAngle, angleOneLegNu } from './angle-en-3-10-3.ts';
+export { blockShearJ4, blockShearLrfd1999, blockTearingEn, type BlockAreas } from './block-shear.ts';
+export { aiscFnv, aiscBoltShear } from './aisc360-connection.ts';
+export { shankArea, stressArea, coreArea, ISO_FUB, AS_FUF, aiscGroup } from './bolt-data.ts';

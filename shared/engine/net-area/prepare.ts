@@ -1,0 +1,69 @@
+import type { StripHole } from './types.ts';
+
+/** Default same-gauge-line tolerance, mm: absorbs BIM round-off in hole positions. */
+export const DEFAULT_Y_TOLERANCE = 0.5;
+
+/**
+ * Holes sorted by (y, x) in flat typed arrays, with gauge lines resolved.
+ * Lengths in mm, w = d·t in mm². Built once per pattern so the O(n²) loops
+ * touch nothing but numbers.
+ */
+export interface PreparedStrip {
+  n: number;
+  /** order[k] = input index of the k-th hole in (y, x) order. */
+  order: Int32Array;
+  x: Float64Array;
+  y: Float64Array;
+  d: Float64Array;
+  t: Float64Array;
+  /** Hole area d·t, mm². */
+  w: Float64Array;
+  /** Gauge-line number of each sorted hole (0, 1, 2 … in increasing y). */
+  line: Int32Array;
+  /** lineStart[k] = sorted position of the first hole on hole k's gauge line. */
+  lineStart: Int32Array;
+  lineCount: number;
+}
+
+/**
+ * Sort holes by y (then x) and group them into gauge lines: a new line starts
+ * where the gap to the previous hole's y exceeds `yTolerance` (single linkage,
+ * so a run of holes each within tolerance of the next is one line). Holes on one
+ * line never become consecutive chain members, which also keeps g > tolerance
+ * and so the s²/4g credit finite (design-rules §9.3 items 1 and 5).
+ * @param holes holes on the developed strip (mm)
+ * @param thickness default thickness for holes without t (mm)
+ * @param yTolerance same-line tolerance (mm, ≥ 0)
+ */
+export function prepareStrip(holes: readonly StripHole[], thickness: number, yTolerance = DEFAULT_Y_TOLERANCE): PreparedStrip {
+  const n = holes.length;
+  const idx = new Array<number>(n);
+  for (let i = 0; i < n; i++) idx[i] = i;
+  idx.sort((a, b) => holes[a].y - holes[b].y || holes[a].x - holes[b].x || a - b);
+  const order = new Int32Array(n);
+  const x = new Float64Array(n);
+  const y = new Float64Array(n);
+  const d = new Float64Array(n);
+  const t = new Float64Array(n);
+  const w = new Float64Array(n);
+  const line = new Int32Array(n);
+  const lineStart = new Int32Array(n);
+  let lineNo = -1;
+  let start = 0;
+  for (let k = 0; k < n; k++) {
+    const h = holes[idx[k]];
+    order[k] = idx[k];
+    x[k] = h.x;
+    y[k] = h.y;
+    d[k] = h.d;
+    t[k] = h.t ?? thickness;
+    w[k] = h.d * t[k];
+    if (k === 0 || h.y - y[k - 1] > yTolerance) {
+      lineNo++;
+      start = k;
+    }
+    line[k] = lineNo;
+    lineStart[k] = start;
+  }
+  return { n, order, x, y, d, t, w, line, lineStart, lineCount: lineNo + 1 };
+}
