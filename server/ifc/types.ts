@@ -198,6 +198,8 @@ export interface ExtractedModel {
   members: ExtractedMember[];
   boltGroups: ExtractedBoltGroup[];
   analysisMembers: ExtractedAnalysisMember[];
+  /** Every parameterised profile definition in the file that maps to a Section (on members or not). */
+  profileDefinitions: { expressId: number; ifcClass: string; name: string | null; section: Section }[];
   /** States the force sign convention so consumers need not guess. */
   forceConvention: string;
   warnings: ExtractionWarning[];
