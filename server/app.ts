@@ -13,6 +13,8 @@ import { sessionRoutes } from './features/session/session-routes';
 import { userRoutes } from './features/users/user-routes';
 import { projectRoutes } from './features/projects/project-routes';
 import type { Logger } from './logger';
+import type { FileStore } from './storage/file-store';
+import { modelRoutes } from './features/models/model-routes';
 
 export interface AppHandle {
   app: express.Express;
@@ -21,7 +23,13 @@ export interface AppHandle {
 }
 
 /** Builds the Express app: security headers, sessions, the API, then the built client. */
-export function createApp(config: AppConfig, sequelize: Sequelize, logger: Logger): AppHandle {
+export interface AppServices {
+  store: FileStore;
+  /** Called when a new import job is queued, so it starts without waiting for the poll. */
+  onImportQueued: () => void;
+}
+
+export function createApp(config: AppConfig, sequelize: Sequelize, logger: Logger, services: AppServices): AppHandle {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -58,6 +66,7 @@ export function createApp(config: AppConfig, sequelize: Sequelize, logger: Logge
   api.use(requireCsrf);
   api.use('/session', sessionRoutes(pp, config));
   api.use('/users', userRoutes(sequelize));
+  api.use('/projects/:projectId', modelRoutes(sequelize, config, services.store, services.onImportQueued));
   api.use('/projects', projectRoutes(sequelize));
   api.use(apiNotFound);
   app.use('/api', api);

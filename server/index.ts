@@ -5,10 +5,13 @@ import { migrateToLatest } from './db/migrate';
 import { countDemoAccounts, seedDemoIfEmpty } from './db/seed/demo-seed';
 import { createApp } from './app';
 import { createLogger } from './logger';
+import { createFileStore } from './storage/file-store-factory';
+import { ImportRunner } from './imports/import-runner';
 
 export interface RunningServer {
   url: string;
   config: AppConfig;
+  imports: ImportRunner;
   stop(): Promise<void>;
 }
 
@@ -26,7 +29,9 @@ export async function startServer(env: Record<string, string | undefined> = proc
   }
   if (config.demoSeed && (await seedDemoIfEmpty(sequelize))) logger.info('seeded the demo project and accounts');
 
-  const handle = createApp(config, sequelize, logger);
+  const store = createFileStore(config);
+  const imports = new ImportRunner(sequelize, config, store, logger);
+  const handle = createApp(config, sequelize, logger, { store, onImportQueued: () => imports.kick() });
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(config.port, config.host, () => resolve(s));
     s.once('error', reject);
@@ -34,10 +39,13 @@ export async function startServer(env: Record<string, string | undefined> = proc
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
   const url = `http://${config.host}:${port}`;
+  imports.start();
   return {
     url,
     config,
+    imports,
     async stop() {
+      await imports.stop();
       handle.close();
       const closed = new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();

@@ -24,6 +24,21 @@ const envSchema = z.object({
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).max(10_000).default(10),
   SIGN_IN_WINDOW_SECONDS: z.coerce.number().int().min(1).max(86_400).default(900),
   LOG_REQUESTS: z.enum(['on', 'off']).default('off'),
+  UPLOAD_LIMIT_MB: z.coerce.number().positive().max(10_000).default(500),
+  STORAGE: z.enum(['local', 's3']).default('local'),
+  S3_ENDPOINT: z.string().url().optional(),
+  S3_REGION: z.string().default('us-east-1'),
+  S3_BUCKET: z.string().optional(),
+  S3_ACCESS_KEY_ID: z.string().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().optional(),
+  S3_FORCE_PATH_STYLE: z.enum(['on', 'off']).default('on'),
+  IMPORT_WORKERS: z.coerce.number().int().min(0).max(16).default(1),
+  IMPORT_TIME_LIMIT_SECONDS: z.coerce.number().int().min(1).max(24 * 3600).default(900),
+  IMPORT_MEMORY_LIMIT_MB: z.coerce.number().int().min(64).max(65_536).default(4096),
+  IMPORT_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(10).default(2),
+  IMPORT_POLL_MS: z.coerce.number().int().min(20).max(60_000).default(500),
+  IMPORT_STALE_SECONDS: z.coerce.number().int().min(5).max(3600).default(60),
+  ARCHIVE_INFLATE_LIMIT_MB: z.coerce.number().positive().max(100_000).default(2048),
 });
 
 export interface AppConfig {
@@ -37,6 +52,20 @@ export interface AppConfig {
   demoSeed: boolean;
   signInLimit: { max: number; windowMs: number };
   logRequests: boolean;
+  uploads: { limitBytes: number; archiveInflateLimitBytes: number };
+  storage:
+    | { kind: 'local' }
+    | { kind: 's3'; endpoint?: string; region: string; bucket: string; accessKeyId?: string; secretAccessKey?: string; forcePathStyle: boolean };
+  imports: {
+    /** Worker threads for import jobs; 0 disables the runner in this process (API-only node). */
+    workers: number;
+    timeLimitMs: number;
+    memoryLimitMb: number;
+    maxAttempts: number;
+    pollMs: number;
+    /** A claimed job whose heartbeat is older than this is taken over by another process. */
+    staleMs: number;
+  };
 }
 
 export class ConfigError extends Error {
@@ -63,6 +92,10 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     if (e.SESSION_SECRET === DEV_SESSION_SECRET) problems.push('SESSION_SECRET: set a secret of your own in production');
     if (e.DEMO_SEED === 'on' && env.DEMO_SEED !== undefined) problems.push('DEMO_SEED: demo accounts are not allowed in production');
   }
+  if (e.STORAGE === 's3') {
+    if (!e.S3_BUCKET) problems.push('S3_BUCKET: required when STORAGE=s3');
+    if (Boolean(e.S3_ACCESS_KEY_ID) !== Boolean(e.S3_SECRET_ACCESS_KEY)) problems.push('S3_ACCESS_KEY_ID / S3_SECRET_ACCESS_KEY: give both or neither');
+  }
   if (problems.length) throw new ConfigError(problems);
   return {
     env: e.NODE_ENV,
@@ -76,5 +109,26 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     demoSeed: e.NODE_ENV !== 'production' && e.DEMO_SEED === 'on',
     signInLimit: { max: e.SIGN_IN_LIMIT, windowMs: e.SIGN_IN_WINDOW_SECONDS * 1000 },
     logRequests: e.LOG_REQUESTS === 'on',
+    uploads: { limitBytes: Math.round(e.UPLOAD_LIMIT_MB * 1024 * 1024), archiveInflateLimitBytes: Math.round(e.ARCHIVE_INFLATE_LIMIT_MB * 1024 * 1024) },
+    storage:
+      e.STORAGE === 's3'
+        ? {
+            kind: 's3',
+            endpoint: e.S3_ENDPOINT,
+            region: e.S3_REGION,
+            bucket: e.S3_BUCKET!,
+            accessKeyId: e.S3_ACCESS_KEY_ID,
+            secretAccessKey: e.S3_SECRET_ACCESS_KEY,
+            forcePathStyle: e.S3_FORCE_PATH_STYLE === 'on',
+          }
+        : { kind: 'local' },
+    imports: {
+      workers: e.IMPORT_WORKERS,
+      timeLimitMs: e.IMPORT_TIME_LIMIT_SECONDS * 1000,
+      memoryLimitMb: e.IMPORT_MEMORY_LIMIT_MB,
+      maxAttempts: e.IMPORT_MAX_ATTEMPTS,
+      pollMs: e.IMPORT_POLL_MS,
+      staleMs: e.IMPORT_STALE_SECONDS * 1000,
+    },
   };
 }

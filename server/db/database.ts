@@ -5,6 +5,11 @@ import { initProjectModel, ProjectModel } from './models/project';
 import { initProjectMemberModel, ProjectMemberModel } from './models/project-member';
 import { initSessionRecordModel } from './models/session-record';
 import { initAuditEntryModel } from './models/audit-entry';
+import { initIfcModelModel } from './models/ifc-model';
+import { initRevisionModel } from './models/revision';
+import { initMemberModel } from './models/member';
+import { initMemberForceModel } from './models/member-force';
+import { initCheckResultModel } from './models/check-result';
 
 /** Opens the connection pool and registers every model. Does not touch the schema (see migrate.ts). */
 export function createDatabase(config: AppConfig['db']): Sequelize {
@@ -23,6 +28,11 @@ export function createDatabase(config: AppConfig['db']): Sequelize {
   initProjectMemberModel(sequelize);
   initSessionRecordModel(sequelize);
   initAuditEntryModel(sequelize);
+  initIfcModelModel(sequelize);
+  initRevisionModel(sequelize);
+  initMemberModel(sequelize);
+  initMemberForceModel(sequelize);
+  initCheckResultModel(sequelize);
 
   ProjectModel.belongsToMany(UserModel, { through: ProjectMemberModel, foreignKey: 'projectId', otherKey: 'userId', as: 'members' });
   UserModel.belongsToMany(ProjectModel, { through: ProjectMemberModel, foreignKey: 'userId', otherKey: 'projectId', as: 'projects' });

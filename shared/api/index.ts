@@ -5,3 +5,5 @@ export * from './users';
 export * from './projects';
 export * from './health';
 export * from './cautions';
+export * from './models';
+export * from './results';

@@ -1,0 +1,39 @@
+import multer from 'multer';
+import { mkdirSync } from 'node:fs';
+import { randomBytes } from 'node:crypto';
+import path from 'node:path';
+import type { RequestHandler } from 'express';
+import type { AppConfig } from '../../config/config';
+import { kindFromName, uploadErrors } from './sniff-upload';
+
+/**
+ * Streams one file to disk under a random name (never the client's), within the size
+ * limit. Refuses other extensions before any byte is stored.
+ */
+export function uploadMiddleware(config: AppConfig): RequestHandler {
+  const incoming = path.resolve(config.dataDir, 'uploads', 'incoming');
+  mkdirSync(incoming, { recursive: true });
+  const upload = multer({
+    storage: multer.diskStorage({
+      destination: incoming,
+      filename: (_req, _file, cb) => cb(null, `${Date.now()}-${randomBytes(8).toString('hex')}.upload`),
+    }),
+    limits: { fileSize: config.uploads.limitBytes, files: 1, fields: 5, fieldSize: 4096, parts: 8 },
+    fileFilter: (_req, file, cb) => {
+      if (kindFromName(file.originalname)) cb(null, true);
+      else cb(uploadErrors.wrongType());
+    },
+  }).single('file');
+
+  const limitMb = Math.round(config.uploads.limitBytes / 1024 / 1024);
+  return (req, res, next) => {
+    upload(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE') return next(uploadErrors.tooLarge(limitMb));
+        return next(uploadErrors.missing());
+      }
+      next(err);
+    });
+  };
+}

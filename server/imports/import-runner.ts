@@ -1,0 +1,141 @@
+import { MessageChannel } from 'node:worker_threads';
+import { hostname } from 'node:os';
+import { randomBytes } from 'node:crypto';
+import Piscina from 'piscina';
+import type { Sequelize } from 'sequelize';
+import type { AppConfig } from '../config/config';
+import type { FileStore } from '../storage/file-store';
+import type { Logger } from '../logger';
+import { RevisionModel } from '../db/models/revision';
+import { IfcModelModel } from '../db/models/ifc-model';
+import { ProjectModel } from '../db/models/project';
+import type { StandardId } from '@shared/api/projects';
+import { claimNextJob, failJob, heartbeat, reportProgress } from './job-claims';
+import { storeOutcome } from './store-outcome';
+import type { ImportOutcome, ImportTask, ProgressMessage } from './run-import-task';
+
+/**
+ * Runs import jobs in worker threads, never on the request thread. Jobs are claimed
+ * from MariaDB, so several app processes can share one queue; a job whose process
+ * died is taken over when its heartbeat goes stale.
+ */
+export class ImportRunner {
+  readonly owner = `${hostname()}:${process.pid}:${randomBytes(3).toString('hex')}`;
+  private readonly pool: Piscina;
+  private readonly active = new Set<Promise<void>>();
+  private timer: NodeJS.Timeout | undefined;
+  private ticking = false;
+  private stopping = false;
+
+  constructor(
+    private readonly sequelize: Sequelize,
+    private readonly config: AppConfig,
+    private readonly store: FileStore,
+    private readonly logger: Logger,
+  ) {
+    this.pool = new Piscina({
+      filename: new URL('./import-worker.mjs', import.meta.url).href,
+      minThreads: 0,
+      maxThreads: Math.max(1, config.imports.workers),
+      idleTimeout: 60_000,
+      concurrentTasksPerWorker: 1,
+      resourceLimits: { maxOldGenerationSizeMb: config.imports.memoryLimitMb },
+    });
+  }
+
+  start(): void {
+    if (this.config.imports.workers === 0) return;
+    this.timer = setInterval(() => this.kick(), this.config.imports.pollMs);
+    this.kick();
+  }
+
+  /** Looks for work now (called after an upload, so jobs start without waiting for the poll). */
+  kick(): void {
+    if (this.stopping || this.ticking || this.config.imports.workers === 0) return;
+    this.ticking = true;
+    void this.fill()
+      .catch((err) => this.logger.warn(`import runner: ${(err as Error).message}`))
+      .finally(() => (this.ticking = false));
+  }
+
+  private async fill(): Promise<void> {
+    while (!this.stopping && this.active.size < this.config.imports.workers) {
+      const job = await claimNextJob(this.sequelize, this.owner, this.config.imports.staleMs, this.config.imports.maxAttempts);
+      if (!job) return;
+      const run = this.runJob(job).finally(() => {
+        this.active.delete(run);
+        this.kick();
+      });
+      this.active.add(run);
+    }
+  }
+
+  private async runJob(job: RevisionModel): Promise<void> {
+    const beat = setInterval(() => void heartbeat(job.id, this.owner).catch(() => undefined), Math.max(1000, this.config.imports.staleMs / 4));
+    const channel = new MessageChannel();
+    let lastReport = 0;
+    let lastStatus = '';
+    channel.port1.on('message', (m: ProgressMessage) => {
+      const now = Date.now();
+      if (m.status === lastStatus && now - lastReport < 300) return;
+      lastStatus = m.status;
+      lastReport = now;
+      void reportProgress(job.id, this.owner, m.status, m.progress).catch(() => undefined);
+    });
+    let local: { path: string; release(): Promise<void> } | undefined;
+    try {
+      const model = await IfcModelModel.findByPk(job.modelId);
+      const project = model ? await ProjectModel.findByPk(model.projectId) : null;
+      if (!project) throw new Error('the project of this revision no longer exists');
+      local = await this.store.fetchToLocal(job.storageKey);
+      const task: ImportTask = {
+        filePath: local.path,
+        kind: job.storageKey.endsWith('.ifczip') ? 'ifczip' : 'ifc',
+        standard: job.standard as StandardId,
+        defaultGrade: project.defaultGrade,
+        inflateLimitBytes: this.config.uploads.archiveInflateLimitBytes,
+        progressPort: channel.port2,
+      };
+      const outcome: ImportOutcome = await this.pool.run(task, {
+        transferList: [channel.port2] as never,
+        signal: AbortSignal.timeout(this.config.imports.timeLimitMs),
+      });
+      if (!outcome.ok) {
+        await failJob(job.id, this.owner, outcome.failure.id, outcome.failure.message);
+        return;
+      }
+      await reportProgress(job.id, this.owner, 'checking', 0.99);
+      const kept = await storeOutcome(this.sequelize, job.id, this.owner, job.standard, outcome.summary, outcome.members);
+      if (!kept) this.logger.warn(`import ${job.id}: another process took the job over; this result was dropped`);
+    } catch (err) {
+      // While shutting down, leave the job claimed: its heartbeat goes stale and a running process takes it over.
+      if (this.stopping) return;
+      const e = err as Error & { name?: string; code?: string };
+      if (e?.name === 'AbortError' || e?.name === 'TimeoutError') {
+        await failJob(job.id, this.owner, 'import.time-limit', `The import took longer than the ${Math.round(this.config.imports.timeLimitMs / 1000)} s limit and was stopped. The file may be malformed; try exporting it again.`);
+      } else if (/ERR_WORKER_OUT_OF_MEMORY|out of memory/i.test(`${e?.code} ${e?.message}`)) {
+        await failJob(job.id, this.owner, 'import.memory-limit', `The import needed more memory than the ${this.config.imports.memoryLimitMb} MB limit and was stopped.`);
+      } else {
+        this.logger.error(`import ${job.id} failed`, err);
+        await failJob(job.id, this.owner, 'import.worker-lost', `The import stopped unexpectedly (${e?.message ?? 'unknown error'}).`);
+      }
+    } finally {
+      clearInterval(beat);
+      channel.port1.close();
+      await local?.release().catch(() => undefined);
+    }
+  }
+
+  /** Stops taking jobs; running ones are abandoned to be taken over after a restart. */
+  async stop(): Promise<void> {
+    this.stopping = true;
+    if (this.timer) clearInterval(this.timer);
+    await this.pool.destroy().catch(() => undefined);
+    await Promise.allSettled([...this.active]);
+  }
+
+  /** Waits until no job is running here (tests). */
+  async idle(): Promise<void> {
+    while (this.active.size) await Promise.allSettled([...this.active]);
+  }
+}

@@ -1,0 +1,65 @@
+import { Op, literal, type Sequelize } from 'sequelize';
+import { RevisionModel } from '../db/models/revision';
+import type { JobStatus } from '@shared/api/models';
+
+const WORKING: JobStatus[] = ['reading', 'extracting', 'checking'];
+
+/**
+ * Claims one job for this process: a queued one, or one whose owner stopped
+ * heart-beating (a crash or restart). The claim is a conditional UPDATE, so when
+ * several app processes share the database exactly one of them wins each job.
+ */
+export async function claimNextJob(sequelize: Sequelize, owner: string, staleMs: number, maxAttempts: number): Promise<RevisionModel | null> {
+  const staleBefore = new Date(Date.now() - staleMs);
+  const candidates = await RevisionModel.findAll({
+    where: {
+      [Op.or]: [
+        { status: 'queued' },
+        { status: WORKING, heartbeatAt: { [Op.lt]: staleBefore } },
+      ],
+    },
+    order: [['id', 'ASC']],
+    limit: 5,
+    attributes: ['id', 'status', 'attempts', 'claimedBy', 'heartbeatAt'],
+  });
+  for (const c of candidates) {
+    if (c.attempts >= maxAttempts) {
+      await failJob(c.id, c.claimedBy, 'import.gave-up', `The import stopped ${c.attempts} time(s) without finishing (the server restarted or the worker was lost), so it was not tried again. Upload the file again to retry.`, true);
+      continue;
+    }
+    const [affected] = await RevisionModel.update(
+      { claimedBy: owner, heartbeatAt: new Date(), status: 'reading', progress: 0, attempts: literal('attempts + 1') as unknown as number, startedAt: new Date() },
+      {
+        where: {
+          id: c.id,
+          status: c.status,
+          ...(c.status === 'queued' ? {} : { heartbeatAt: { [Op.lt]: staleBefore } }),
+          attempts: c.attempts,
+        },
+      },
+    );
+    if (affected === 1) return RevisionModel.findByPk(c.id);
+  }
+  void sequelize;
+  return null;
+}
+
+/** Moves a claimed job on; refuses silently when another process has taken it over. */
+export async function reportProgress(id: number, owner: string, status: JobStatus, progress: number): Promise<boolean> {
+  const [affected] = await RevisionModel.update(
+    { status, progress: Math.max(0, Math.min(1, progress)), heartbeatAt: new Date() },
+    { where: { id, claimedBy: owner, status: { [Op.notIn]: ['done', 'failed'] } } },
+  );
+  return affected === 1;
+}
+
+export async function heartbeat(id: number, owner: string): Promise<void> {
+  await RevisionModel.update({ heartbeatAt: new Date() }, { where: { id, claimedBy: owner, status: { [Op.notIn]: ['done', 'failed'] } } });
+}
+
+export async function failJob(id: number, owner: string | null, failureId: string, message: string, anyOwner = false): Promise<void> {
+  await RevisionModel.update(
+    { status: 'failed', failureId, failureMessage: message, finishedAt: new Date(), heartbeatAt: new Date() },
+    { where: { id, ...(anyOwner ? {} : { claimedBy: owner }), status: { [Op.notIn]: ['done', 'failed'] } } },
+  );
+}
