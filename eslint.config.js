@@ -7,6 +7,12 @@ const layerPatterns = (from) => [
   { group: ['**/server/**', '../server/*', '@server/*'], message: `${from} must not import from server/.` },
 ];
 
+const clientPatterns = [
+  { group: ['**/server/**', '../server/*'], message: 'client/ must not import from server/.' },
+  { group: ['web-ifc', 'web-ifc/*'], message: 'Only server/ifc/ imports web-ifc.' },
+];
+const clientFeatures = ['session', 'projects', 'admin'];
+
 export default tseslint.config(
   { ignores: ['node_modules/**', 'client/dist/**', 'dist/**', '.data/**', '.test-data/**'] },
   ...tseslint.configs.recommended,
@@ -40,11 +46,35 @@ export default tseslint.config(
     files: ['client/**/*.{ts,tsx}'],
     rules: {
       'no-restricted-imports': ['error', {
+        patterns: clientPatterns,
+      }],
+    },
+  },
+  // Inside the client: lib/ and ui/ are plumbing and know no feature or route; a feature
+  // never imports another feature (routes compose them).
+  {
+    files: ['client/src/lib/**/*.{ts,tsx}', 'client/src/ui/**/*.{ts,tsx}'],
+    rules: {
+      'no-restricted-imports': ['error', {
         patterns: [
-          { group: ['**/server/**', '../server/*'], message: 'client/ must not import from server/.' },
-          { group: ['web-ifc', 'web-ifc/*'], message: 'Only server/ifc/ imports web-ifc.' },
+          ...clientPatterns,
+          { group: ['**/features/**', '**/routes/**', '**/app/**'], message: 'lib/ and ui/ must not import features, routes or the app.' },
         ],
       }],
     },
   },
+  ...clientFeatures.map((feature) => ({
+    files: [`client/src/features/${feature}/**/*.{ts,tsx}`],
+    rules: {
+      'no-restricted-imports': ['error', {
+        patterns: [
+          ...clientPatterns,
+          { group: ['**/routes/**', '**/app/**'], message: 'Features must not import routes or the app.' },
+          ...clientFeatures
+            .filter((other) => other !== feature)
+            .map((other) => ({ group: [`**/features/${other}`, `**/features/${other}/**`, `../${other}`, `../${other}/**`, `../../${other}`, `../../${other}/**`, `../../../${other}/**`], message: `The ${feature} feature must not import the ${other} feature; compose them in routes/.` })),
+        ],
+      }],
+    },
+  })),
 );

@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useRef, useState, type ChangeEvent, type FormEvent } from 'react';
+import { useCallback, useMemo, useRef, useState, type ChangeEvent, type FocusEvent, type FormEvent, type PointerEvent } from 'react';
 import type { z } from 'zod';
 import { ApiError, errorMessage } from './api-client';
 
@@ -9,6 +9,9 @@ import { ApiError, errorMessage } from './api-client';
  *   (e.g. empty optional fields become undefined) before the schema parses them.
  * - Validation runs on every change. A field's message appears once the field has
  *   been left (blur) or a submit was tried, and then follows what the person types.
+ * - Leaving a field by pressing the submit button does not show its message first:
+ *   the message would push the button down mid-click and the click would be lost.
+ *   The submit then checks every field anyway.
  * - On a failed submit, focus moves to the first field with a problem; if the server
  *   refuses, its message is shown in the form's notice (which takes focus) and its
  *   field messages beside the fields.
@@ -30,7 +33,7 @@ export interface FieldProps {
   value: string;
   error?: string;
   onChange: (event: ChangeEvent<HTMLInputElement | HTMLTextAreaElement | HTMLSelectElement>) => void;
-  onBlur: () => void;
+  onBlur: (event: FocusEvent<HTMLElement>) => void;
   ref: (element: HTMLElement | null) => void;
 }
 
@@ -48,6 +51,10 @@ function issuesToErrors<K extends string>(issues: readonly z.core.$ZodIssue[], f
   return { fieldErrors, formError };
 }
 
+function isSubmitButton(target: EventTarget | null): boolean {
+  return target instanceof Element && target.closest('button[type="submit"], input[type="submit"]') !== null;
+}
+
 export function useZodForm<K extends string, S extends z.ZodType>({ initial, schema, prepare, check }: Options<K, S>) {
   const fields = useMemo(() => Object.keys(initial) as K[], [initial]);
   const [values, setValues] = useState<Record<K, string>>(initial);
@@ -57,6 +64,7 @@ export function useZodForm<K extends string, S extends z.ZodType>({ initial, sch
   const [formError, setFormError] = useState<string | null>(null);
   const elements = useRef(new Map<K, HTMLElement>());
   const noticeRef = useRef<HTMLDivElement | null>(null);
+  const pressingSubmit = useRef(false);
 
   const validate = useCallback(
     (v: Record<K, string>) => {
@@ -92,7 +100,10 @@ export function useZodForm<K extends string, S extends z.ZodType>({ initial, sch
     value: values[name],
     error: visibleError(name),
     onChange: (event) => setValue(name, event.target.value),
-    onBlur: () => setTouched((prev) => (prev[name] ? prev : { ...prev, [name]: true })),
+    onBlur: (event) => {
+      if (pressingSubmit.current || isSubmitButton(event.relatedTarget)) return;
+      setTouched((prev) => (prev[name] ? prev : { ...prev, [name]: true }));
+    },
     ref: (element) => {
       if (element) elements.current.set(name, element);
       else elements.current.delete(name);
@@ -139,6 +150,19 @@ export function useZodForm<K extends string, S extends z.ZodType>({ initial, sch
       void Promise.resolve(onValid(now.data as z.infer<S>)).catch(showServerError);
     };
 
+  /** Props for the <form>: submit handling, no browser bubbles (we show our own), and the submit-press guard. */
+  const formProps = (onValid: (data: z.infer<S>) => void | Promise<unknown>) => ({
+    onSubmit: handleSubmit(onValid),
+    noValidate: true,
+    onPointerDownCapture: (event: PointerEvent<HTMLFormElement>) => {
+      if (!isSubmitButton(event.target)) return;
+      pressingSubmit.current = true;
+      const release = () => setTimeout(() => (pressingSubmit.current = false), 0);
+      window.addEventListener('pointerup', release, { once: true });
+      window.addEventListener('pointercancel', release, { once: true });
+    },
+  });
+
   const reset = (next: Record<K, string> = initial) => {
     setValues(next);
     setTouched({});
@@ -152,6 +176,7 @@ export function useZodForm<K extends string, S extends z.ZodType>({ initial, sch
     setValue,
     field,
     handleSubmit,
+    formProps,
     reset,
     formError,
     /** Attach to the form's Notice so it can take focus when the server refuses. */

@@ -1,5 +1,5 @@
 import { usePageTitle } from '../lib/page-title';
-import { PageHeader, Panel } from '../ui';
+import { buttonClass, PageHeader, Panel } from '../ui';
 import { CreatePersonForm, PeopleTable } from '../features/admin';
 import { useSignedInUser } from './guards';
 
@@ -8,14 +8,25 @@ export function AdminPeoplePage() {
   const user = useSignedInUser();
   return (
     <>
-      <PageHeader eyebrow="Admin" title="People" description="Who can sign in, and what each person may do." />
-      <div className="grid gap-block xl:grid-cols-[minmax(0,1fr)_22rem] xl:items-start">
+      <PageHeader
+        eyebrow="Admin"
+        title="People"
+        description="Who can sign in, and what each person may do."
+        actions={
+          <a href="#add-person" className={buttonClass('secondary', 'md', 'no-print')}>
+            Add a person
+          </a>
+        }
+      />
+      <div className="flex flex-col gap-block">
         <Panel title="Everyone">
           <PeopleTable currentUserId={user.id} />
         </Panel>
-        <Panel title="Add a person" className="no-print">
-          <CreatePersonForm />
-        </Panel>
+        <div id="add-person" className="no-print scroll-mt-4">
+          <Panel title="Add a person" description="They can sign in as soon as they have a password.">
+            <CreatePersonForm />
+          </Panel>
+        </div>
       </div>
     </>
   );

@@ -16,7 +16,7 @@ export function AdminProjectsPage() {
   return (
     <>
       <PageHeader eyebrow="Admin" title="Project access" description="Start projects and decide who can see each one." />
-      <div className="grid gap-block xl:grid-cols-[minmax(0,1fr)_22rem] xl:items-start">
+      <div data-layout="split" className="grid gap-block xl:grid-cols-[minmax(0,1fr)_21rem] xl:items-start">
         <Panel title="Who has access">
           {projects.isPending ? (
             <LoadingState label="Loading projects…" />

@@ -18,7 +18,7 @@ const linkClass = ({ isActive }: { isActive: boolean }) =>
 export function MainNav({ user }: { user: SessionUser }) {
   const isAdmin = user.role === 'admin';
   return (
-    <nav aria-label="Main" className="flex flex-wrap items-center gap-x-6 gap-y-2">
+    <nav aria-label="Main" className="flex min-w-0 flex-1 basis-full flex-wrap items-center gap-x-6 gap-y-1 md:basis-auto">
       <ul className="flex items-center gap-4">
         <li>
           <NavLink to={paths.home} end className={linkClass}>
@@ -32,7 +32,7 @@ export function MainNav({ user }: { user: SessionUser }) {
         </li>
       </ul>
       {isAdmin && (
-        <div className="flex items-center gap-3 border-l border-rule pl-5">
+        <div className="flex items-center gap-3 border-l border-rule pl-4">
           <span id="nav-admin-label" className="ledger-label">
             Admin
           </span>
@@ -50,8 +50,8 @@ export function MainNav({ user }: { user: SessionUser }) {
           </ul>
         </div>
       )}
-      <div className="flex items-center gap-3 sm:ml-auto">
-        <p className="text-small text-muted">
+      <div className="ml-auto flex items-center gap-3">
+        <p className="hidden text-small text-muted lg:block">
           <span className="sr-only">Signed in as </span>
           <span className="font-semibold text-ink">{user.name}</span>
           <span aria-hidden="true"> · </span>

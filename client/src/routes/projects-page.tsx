@@ -15,7 +15,7 @@ export function ProjectsPage() {
   return (
     <>
       <PageHeader title="Projects" description={canCreate ? 'Open a project, or start a new one.' : 'The projects you have been given access to.'} />
-      <div className={canCreate ? 'grid gap-block lg:grid-cols-[minmax(0,1fr)_22rem] lg:items-start' : undefined}>
+      <div data-layout="split" className={canCreate ? 'grid gap-block lg:grid-cols-[minmax(0,1fr)_21rem] lg:items-start' : undefined}>
         <ProjectList
           emptyHint={
             canCreate

@@ -36,12 +36,12 @@ export function RootLayout() {
 
       <header className="border-b border-rule bg-card">
         <div className="h-1 bg-copper" aria-hidden="true" />
-        <div className="mx-auto flex max-w-page flex-wrap items-center gap-x-10 gap-y-3 px-gutter py-3">
+        <div className="mx-auto flex max-w-page flex-wrap items-center gap-x-10 gap-y-2 px-gutter py-3">
           <Link to={user ? paths.home : paths.signIn} className="flex items-baseline gap-2 text-ink no-underline hover:text-ink hover:no-underline">
             <Wordmark />
             <span className="sr-only">, home</span>
           </Link>
-          <div className="min-w-0 flex-1">{user ? <MainNav user={user} /> : null}</div>
+          {user ? <MainNav user={user} /> : null}
         </div>
       </header>
 
@@ -50,15 +50,13 @@ export function RootLayout() {
       </main>
 
       <footer className="sticky bottom-0 z-10 border-t border-rule bg-paper/95 backdrop-blur-sm print:static">
-        <div className="mx-auto flex max-w-page flex-wrap items-baseline gap-x-4 gap-y-1 px-gutter py-2 text-fine text-muted">
-          <p className="flex-1">
-            <strong className="font-semibold text-heed">Caution: </strong>
-            {CAUTION_SUMMARY}
-          </p>
-          <Link to={paths.about} className="no-print">
+        <p className="mx-auto max-w-page px-gutter py-2 text-fine text-muted">
+          <strong className="font-semibold text-heed">Caution: </strong>
+          {CAUTION_SUMMARY}{' '}
+          <Link to={paths.about} className="no-print whitespace-nowrap">
             Scope and cautions
           </Link>
-        </div>
+        </p>
       </footer>
       <ScrollRestoration />
     </div>

@@ -6,8 +6,8 @@ export type ButtonVariant = 'primary' | 'secondary' | 'quiet' | 'danger';
 export type ButtonSize = 'md' | 'sm';
 
 const base =
-  'inline-flex items-center justify-center gap-2 rounded-control border font-semibold whitespace-nowrap ' +
-  'transition-colors disabled:cursor-not-allowed disabled:opacity-55 aria-busy:cursor-progress';
+  'inline-flex items-center justify-center gap-2 rounded-control border font-semibold whitespace-nowrap transition-colors ' +
+  'disabled:cursor-not-allowed disabled:border-rule disabled:bg-ledger disabled:text-muted aria-busy:cursor-progress';
 
 const variants: Record<ButtonVariant, string> = {
   primary: 'border-copper bg-copper text-white hover:bg-copper-deep hover:border-copper-deep',
@@ -34,13 +34,22 @@ interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   ref?: Ref<HTMLButtonElement>;
 }
 
-export function Button({ variant = 'primary', size = 'md', busy = false, type = 'button', className, disabled, children, ...rest }: ButtonProps) {
+export function Button({ variant = 'primary', size = 'md', busy = false, type = 'button', className, disabled, children, onClick, ...rest }: ButtonProps) {
+  // While busy the button keeps its look but ignores presses (and so blocks a second submit).
   return (
     <button
       type={type}
       className={cx(base, variants[variant], sizes[size], className)}
-      disabled={disabled || busy}
+      disabled={disabled}
+      aria-disabled={busy || undefined}
       aria-busy={busy || undefined}
+      onClick={(event) => {
+        if (busy) {
+          event.preventDefault();
+          return;
+        }
+        onClick?.(event);
+      }}
       {...rest}
     >
       {busy && <Spinner size="sm" decorative />}

@@ -16,12 +16,14 @@ interface SelectProps extends Omit<SelectHTMLAttributes<HTMLSelectElement>, 'cla
   optional?: boolean;
   /** Hide the label visually (it stays for screen readers), e.g. inside a table row. */
   hideLabel?: boolean;
+  /** Smaller control for use inside table rows. */
+  compact?: boolean;
   className?: string;
   ref?: Ref<HTMLSelectElement>;
 }
 
 /** A labelled native select: keyboard and screen-reader behaviour come from the browser. */
-export function Select({ label, options, description, error, optional, hideLabel, className, id: givenId, ...rest }: SelectProps) {
+export function Select({ label, options, description, error, optional, hideLabel, compact, className, id: givenId, ...rest }: SelectProps) {
   const autoId = useId();
   const id = givenId ?? autoId;
   const descriptionId = description ? `${id}-description` : undefined;
@@ -39,7 +41,7 @@ export function Select({ label, options, description, error, optional, hideLabel
         {...rest}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy(descriptionId, errorId)}
-        className={cx(controlClass, 'min-h-10 appearance-auto border-edge py-1.5 pr-8')}
+        className={cx(controlClass, 'appearance-auto border-edge', compact ? 'min-h-8 py-1 pr-6 pl-2 text-small' : 'min-h-10 py-1.5 pr-8')}
       >
         {options.map((o) => (
           <option key={o.value} value={o.value} disabled={o.disabled}>

@@ -1,14 +1,20 @@
 import type { ReactNode } from 'react';
-import { errorMessage } from '../lib/api-client';
+import { ApiError, errorMessage } from '../lib/api-client';
 import { Button } from './button';
 
-/** Something failed to load: say what, in the server's words, and offer to try again. */
+/** Asking again only helps when the failure was not the server's considered answer (not found, not allowed…). */
+function worthRetrying(error: unknown): boolean {
+  if (!(error instanceof ApiError)) return true;
+  return error.status === 0 || error.status === 408 || error.status === 429 || error.status >= 500;
+}
+
+/** Something failed to load: say what, in the server's words, and offer to try again where that can help. */
 export function ErrorState({ title = 'This could not be loaded', error, onRetry }: { title?: string; error: unknown; onRetry?: () => void }) {
   return (
     <div role="alert" className="rounded-card border border-l-4 border-rule border-l-fault bg-fault-wash px-4 py-4">
       <p className="font-semibold text-fault">{title}</p>
       <p className="mt-1 text-small text-ink">{errorMessage(error)}</p>
-      {onRetry && (
+      {onRetry && worthRetrying(error) && (
         <Button variant="secondary" size="sm" className="mt-3" onClick={onRetry}>
           Try again
         </Button>

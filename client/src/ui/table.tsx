@@ -5,9 +5,22 @@ import { cx } from '../lib/cx';
  * Ruled ledger tables. The caption names the table for screen readers (and can be
  * shown); the wrapper scrolls sideways on narrow screens instead of squashing columns.
  */
-export function Table({ caption, captionVisible = false, children, className }: { caption: string; captionVisible?: boolean; children: ReactNode; className?: string }) {
+export function Table({
+  caption,
+  captionVisible = false,
+  framed = false,
+  children,
+  className,
+}: {
+  caption: string;
+  captionVisible?: boolean;
+  /** Draw the table on its own white sheet (when it is not already inside a Panel). */
+  framed?: boolean;
+  children: ReactNode;
+  className?: string;
+}) {
   return (
-    <div className={cx('overflow-x-auto', className)}>
+    <div data-card={framed || undefined} className={cx('overflow-x-auto', framed && 'rounded-card border border-rule bg-card', className)}>
       <table className="w-full border-collapse text-left text-small tabular-nums">
         <caption className={captionVisible ? 'mb-2 text-left font-semibold text-ink' : 'sr-only'}>{caption}</caption>
         {children}
@@ -34,7 +47,7 @@ interface ThProps extends ThHTMLAttributes<HTMLTableCellElement> {
 
 export function Th({ children, numeric, className, scope = 'col', ...rest }: ThProps) {
   return (
-    <th scope={scope} className={cx('ledger-label px-3 py-2', numeric && 'text-right', className)} {...rest}>
+    <th scope={scope} className={cx('ledger-label px-3 py-2 align-bottom whitespace-nowrap', numeric && 'text-right', className)} {...rest}>
       {children}
     </th>
   );
@@ -46,7 +59,7 @@ interface TdProps extends TdHTMLAttributes<HTMLTableCellElement> {
 
 export function Td({ children, numeric, className, ...rest }: TdProps) {
   return (
-    <td className={cx('px-3 py-2.5', numeric && 'text-right', className)} {...rest}>
+    <td className={cx('px-3 py-2.5', numeric && 'text-right whitespace-nowrap', className)} {...rest}>
       {children}
     </td>
   );

@@ -1,12 +1,12 @@
 import { useState } from 'react';
-import { PASSWORD_MIN_LENGTH, ROLES, createUserRequestSchema, type User } from '@shared/api';
+import { PASSWORD_MIN_LENGTH, ROLES, createUserRequestSchema, type Role, type User } from '@shared/api';
 import { useZodForm } from '../../../lib/form';
 import { ROLE_DESCRIPTIONS, ROLE_LABELS } from '../../../lib/roles';
 import { Button, Notice, Select, TextField } from '../../../ui';
 import { useCreateUser } from '../api/use-create-user';
 
 const initial = { email: '', name: '', role: 'engineer', password: '' };
-const roleOptions = ROLES.map((role) => ({ value: role, label: `${ROLE_LABELS[role]}: ${ROLE_DESCRIPTIONS[role]}` }));
+const roleOptions = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
 
 /** Adds a person: e-mail, name, role and (for now) a starting password. */
 export function CreatePersonForm({ onCreated }: { onCreated?: (user: User) => void }) {
@@ -18,7 +18,7 @@ export function CreatePersonForm({ onCreated }: { onCreated?: (user: User) => vo
     prepare: (v) => ({ ...v, password: v.password === '' ? undefined : v.password }),
   });
 
-  const submit = form.handleSubmit(async (request) => {
+  const submit = form.formProps(async (request) => {
     setAdded(null);
     const user = await create.mutateAsync(request);
     form.reset();
@@ -27,7 +27,7 @@ export function CreatePersonForm({ onCreated }: { onCreated?: (user: User) => vo
   });
 
   return (
-    <form onSubmit={submit} noValidate aria-label="Add a person" className="flex flex-col gap-5">
+    <form {...submit} aria-label="Add a person" className="flex flex-col gap-5">
       {form.formError && (
         <Notice tone="error" ref={form.noticeRef} title="Person not added">
           {form.formError}
@@ -38,17 +38,21 @@ export function CreatePersonForm({ onCreated }: { onCreated?: (user: User) => vo
           Give them access to their projects under Project access.
         </Notice>
       )}
-      <TextField label="E-mail address" type="email" autoComplete="off" spellCheck={false} autoCapitalize="none" {...form.field('email')} />
-      <TextField label="Name" autoComplete="off" {...form.field('name')} />
-      <Select label="Role" options={roleOptions} {...form.field('role')} />
-      <TextField
-        label="Starting password"
-        type="password"
-        optional
-        autoComplete="new-password"
-        description={`At least ${PASSWORD_MIN_LENGTH} characters; pass it on privately and ask them to change it under Account. Without one, the account waits for an invitation e-mail, which arrives in a later release.`}
-        {...form.field('password')}
-      />
+      <div className="@container">
+        <div className="grid items-start gap-5 @xl:grid-cols-2">
+          <TextField label="E-mail address" type="email" autoComplete="off" spellCheck={false} autoCapitalize="none" {...form.field('email')} />
+          <TextField label="Name" autoComplete="off" {...form.field('name')} />
+          <Select label="Role" options={roleOptions} description={ROLE_DESCRIPTIONS[form.values.role as Role] ?? undefined} {...form.field('role')} />
+          <TextField
+            label="Starting password"
+            type="password"
+            optional
+            autoComplete="new-password"
+            description={`At least ${PASSWORD_MIN_LENGTH} characters; pass it on privately and ask them to change it under Account. Without one, the account waits for an invitation e-mail, which arrives in a later release.`}
+            {...form.field('password')}
+          />
+        </div>
+      </div>
       <div>
         <Button type="submit" busy={create.isPending}>
           {create.isPending ? 'Adding…' : 'Add person'}

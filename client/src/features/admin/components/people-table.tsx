@@ -55,8 +55,7 @@ export function PeopleTable({ currentUserId }: { currentUserId: number }) {
         <Table caption={`People (${shown.length} of ${users.data.length})`}>
           <THead>
             <Tr>
-              <Th>Name</Th>
-              <Th>E-mail</Th>
+              <Th>Person</Th>
               <Th>Role</Th>
               <Th>Status</Th>
               <Th numeric>Last signed in</Th>
@@ -71,10 +70,10 @@ export function PeopleTable({ currentUserId }: { currentUserId: number }) {
               return (
                 <Tr key={user.id} className={user.active ? undefined : 'text-muted'}>
                   <RowHeader>
-                    {user.name}
-                    {self && <span className="ml-2 font-normal text-muted">(you)</span>}
+                    <span className={user.active ? undefined : 'text-muted'}>{user.name}</span>
+                    {self && <span className="font-normal text-muted"> (you)</span>}
+                    <span className="block font-normal break-words text-muted">{user.email}</span>
                   </RowHeader>
-                  <Td className="break-all">{user.email}</Td>
                   <Td>
                     {self ? (
                       <Badge tone={user.role === 'admin' ? 'copper' : 'neutral'}>{ROLE_LABELS[user.role]}</Badge>
@@ -135,7 +134,7 @@ function RoleChanger({ user, busy, onChange }: { user: User; busy: boolean; onCh
         if (changed) onChange(role);
       }}
     >
-      <Select id={id} label={`Role of ${user.name}`} hideLabel options={roleOptions} value={role} onChange={(e) => setRole(e.target.value as Role)} className="min-w-32" />
+      <Select id={id} label={`Role of ${user.name}`} hideLabel compact options={roleOptions} value={role} onChange={(e) => setRole(e.target.value as Role)} className="w-32" />
       {changed && (
         <Button type="submit" size="sm" variant="secondary" busy={busy}>
           Change role

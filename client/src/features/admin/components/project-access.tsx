@@ -94,7 +94,7 @@ function MembersOf({ project }: { project: ProjectChoice }) {
   return (
     <div className="flex flex-col gap-4">
       <form
-        aria-label={`Give access to ${project.name}`}
+        aria-label={`Add someone to ${project.name}`}
         className="flex flex-wrap items-end gap-3"
         onSubmit={(event) => {
           event.preventDefault();
@@ -123,8 +123,7 @@ function MembersOf({ project }: { project: ProjectChoice }) {
         <Table caption={`People with access to ${project.name}`}>
           <THead>
             <Tr>
-              <Th>Name</Th>
-              <Th>E-mail</Th>
+              <Th>Person</Th>
               <Th>Role</Th>
               <Th numeric>Since</Th>
               <Th>
@@ -135,8 +134,10 @@ function MembersOf({ project }: { project: ProjectChoice }) {
           <TBody>
             {members.data.map((member) => (
               <Tr key={member.userId}>
-                <RowHeader>{member.name}</RowHeader>
-                <Td className="break-all">{member.email}</Td>
+                <RowHeader>
+                  {member.name}
+                  <span className="block font-normal break-words text-muted">{member.email}</span>
+                </RowHeader>
                 <Td>
                   <Badge tone={member.role === 'admin' ? 'copper' : 'neutral'}>{ROLE_LABELS[member.role]}</Badge>
                 </Td>

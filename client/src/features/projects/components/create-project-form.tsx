@@ -27,14 +27,14 @@ export function CreateProjectForm({ onCreated }: { onCreated: (project: Project)
     }),
   });
 
-  const submit = form.handleSubmit(async (request) => {
+  const submit = form.formProps(async (request) => {
     const project = await create.mutateAsync(request);
     form.reset();
     onCreated(project);
   });
 
   return (
-    <form onSubmit={submit} noValidate aria-label="New project" className="flex flex-col gap-5">
+    <form {...submit} aria-label="New project" className="flex flex-col gap-5">
       {form.formError && (
         <Notice tone="error" ref={form.noticeRef} title="Project not created">
           {form.formError}

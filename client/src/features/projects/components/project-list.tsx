@@ -16,12 +16,12 @@ export function ProjectList({ emptyHint }: { emptyHint: ReactNode }) {
 
   const sorted = [...projects.data].sort((a, b) => b.updatedAt.localeCompare(a.updatedAt));
   return (
-    <Table caption="Projects">
+    <Table caption="Projects" framed>
       <THead>
         <Tr>
           <Th>Project</Th>
           <Th>Standard</Th>
-          <Th>Default grade</Th>
+          <Th className="hidden sm:table-cell">Default grade</Th>
           <Th numeric>Last changed</Th>
         </Tr>
       </THead>
@@ -30,10 +30,10 @@ export function ProjectList({ emptyHint }: { emptyHint: ReactNode }) {
           <Tr key={project.id}>
             <RowHeader>
               <Link to={paths.project(project.id)}>{project.name}</Link>
-              {project.description && <p className="mt-0.5 line-clamp-2 max-w-prose font-normal text-muted">{project.description}</p>}
+              {project.description && <p className="mt-0.5 line-clamp-2 max-w-prose font-normal text-muted print:line-clamp-none">{project.description}</p>}
             </RowHeader>
             <Td>{standardName(project.standard)}</Td>
-            <Td>{project.defaultGrade || '—'}</Td>
+            <Td className="hidden sm:table-cell">{project.defaultGrade || '—'}</Td>
             <Td numeric>
               <time dateTime={project.updatedAt}>{formatDate(project.updatedAt)}</time>
             </Td>

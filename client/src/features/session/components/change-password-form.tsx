@@ -23,7 +23,7 @@ export function ChangePasswordForm() {
     },
   });
 
-  const submit = form.handleSubmit(async (request) => {
+  const submit = form.formProps(async (request) => {
     setDone(false);
     await change.mutateAsync(request);
     form.reset();
@@ -31,7 +31,7 @@ export function ChangePasswordForm() {
   });
 
   return (
-    <form onSubmit={submit} noValidate aria-label="Change password" className="flex flex-col gap-5">
+    <form {...submit} aria-label="Change password" className="flex flex-col gap-5">
       {form.formError && (
         <Notice tone="error" ref={form.noticeRef} title="Password not changed">
           {form.formError}

@@ -8,13 +8,13 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
   const signIn = useSignIn();
   const form = useZodForm({ initial: { email: '', password: '' }, schema: signInRequestSchema });
 
-  const submit = form.handleSubmit(async (request) => {
+  const submit = form.formProps(async (request) => {
     const session = await signIn.mutateAsync(request);
     if (session.user) onSignedIn(session.user);
   });
 
   return (
-    <form onSubmit={submit} noValidate aria-label="Sign in" className="flex flex-col gap-5">
+    <form {...submit} aria-label="Sign in" className="flex flex-col gap-5">
       {form.formError && (
         <Notice tone="error" ref={form.noticeRef} title="Not signed in">
           {form.formError}
