@@ -15,6 +15,7 @@ import { projectRoutes } from './features/projects/project-routes';
 import type { Logger } from './logger';
 import type { FileStore } from './storage/file-store';
 import { modelRoutes } from './features/models/model-routes';
+import { memberRoutes } from './features/members/member-routes';
 
 export interface AppHandle {
   app: express.Express;
@@ -60,12 +61,15 @@ export function createApp(config: AppConfig, sequelize: Sequelize, logger: Logge
   const api = express.Router();
   const sessions = createSessionMiddleware(sequelize, config);
   const pp = configurePassport();
-  api.use(express.json({ limit: '1mb' }));
+  // Forces tables may be large; every other body is small.
+  const smallJson = express.json({ limit: '1mb' });
+  api.use((req, res, next) => (req.path.endsWith('/forces') ? next() : smallJson(req, res, next)));
   api.use(sessions.middleware);
   api.use(pp.session());
   api.use(requireCsrf);
   api.use('/session', sessionRoutes(pp, config));
   api.use('/users', userRoutes(sequelize));
+  api.use('/projects/:projectId/revisions/:revisionId', memberRoutes(sequelize));
   api.use('/projects/:projectId', modelRoutes(sequelize, config, services.store, services.onImportQueued));
   api.use('/projects', projectRoutes(sequelize));
   api.use(apiNotFound);

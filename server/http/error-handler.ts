@@ -26,6 +26,7 @@ export function errorHandler(log: (msg: string, err: unknown) => void): ErrorReq
     }
     const body: ApiErrorBody = { error: appError.id, message: appError.message };
     if (appError.fields) body.fields = appError.fields;
+    if (appError.details !== undefined) body.details = appError.details;
     if (res.headersSent) return;
     res.status(appError.status).json(body);
   };

@@ -10,6 +10,8 @@ export class AppError extends Error {
     public readonly id: string,
     message: string,
     public readonly fields?: Record<string, string>,
+    /** Structured detail for the client, e.g. a per-row report of a rejected file. */
+    public readonly details?: unknown,
   ) {
     super(message);
     this.name = 'AppError';

@@ -2,6 +2,7 @@ import { checkMemberRaw, locateOnStrip, identifyGrade, type CheckResult, type Me
 import type { StandardId } from '@shared/api/projects';
 import type { MemberDetail, MemberEndDetail, StripHole } from '@shared/api/member-detail';
 import { bandOf, type ResultBand } from '@shared/api/results';
+import { designForceFrom } from '@shared/forces/design-force';
 import type { ExtractedHole, ExtractedMember, ExtractedModel } from '../ifc/types';
 
 export interface CheckSettings {
@@ -76,13 +77,6 @@ function endsOf(m: ExtractedMember, warnings: string[]): Omit<MemberEndDetail, '
   return ends;
 }
 
-/** Largest tension over the load cases (N), or null when no case is in tension. */
-function envelope(m: ExtractedMember): { force: number | null; source: string | null } {
-  let best: { force: number; source: string } | null = null;
-  for (const f of m.forces) if (f.axialForce > 0 && (!best || f.axialForce > best.force)) best = { force: f.axialForce, source: f.source };
-  return best ? best : { force: null, source: m.forces.length ? m.forces[0].source : null };
-}
-
 function steelSpec(m: ExtractedMember, settings: CheckSettings, warnings: string[]): { spec: MemberCheckInputRaw['steel']; fromDefault: boolean } {
   const mat = m.material;
   if (mat?.yieldStress && mat.ultimateStress) return { spec: { fy: mat.yieldStress, fu: mat.ultimateStress }, fromDefault: false };
@@ -97,7 +91,7 @@ function steelSpec(m: ExtractedMember, settings: CheckSettings, warnings: string
 export function checkExtractedMember(m: ExtractedMember, settings: CheckSettings, boltGrades: Map<string, string>): MemberRecord {
   const warnings: string[] = [];
   const ends = endsOf(m, warnings);
-  const { force, source } = envelope(m);
+  const { force, source } = designForceFrom(m.forces.map((f) => ({ loadCase: f.loadCase, axialN: f.axialForce, source: f.source })));
   const isTension = m.isTensionCandidate || (force !== null && force > 0);
   const { spec, fromDefault } = steelSpec(m, settings, warnings);
   const section = m.profile.section;
@@ -105,7 +99,9 @@ export function checkExtractedMember(m: ExtractedMember, settings: CheckSettings
 
   let best: { result: CheckResult; input: MemberCheckInputRaw; end: number } | null = null;
   const endDetails: MemberEndDetail[] = [];
-  if (section && isTension) {
+  // Every member with a section is checked (a forces file may later put any of them in
+  // tension); whether it counts as a tension member only decides how it is listed.
+  if (section) {
     const cases = ends.length ? ends : [null];
     cases.forEach((end, index) => {
       const boltGrade = end?.boltGroupGlobalId ? boltGrades.get(end.boltGroupGlobalId) : undefined;
@@ -127,8 +123,6 @@ export function checkExtractedMember(m: ExtractedMember, settings: CheckSettings
         if (end) endDetails.push({ ...end, boltGrade: null, designCapacity: null, governing: null });
       }
     });
-  } else if (!isTension) {
-    endDetails.push(...ends.map((e) => ({ ...e, boltGrade: null, designCapacity: null, governing: null })));
   }
   if (isTension && force === null) warnings.push(m.forces.length ? 'No load case puts this member in tension.' : 'No design force is known for this member.');
 

@@ -4,6 +4,8 @@ export interface ApiErrorBody {
   message: string;
   /** Field-level problems from validation, keyed by dotted path. */
   fields?: Record<string, string>;
+  /** Structured detail, e.g. the per-row report of a rejected forces file. */
+  details?: unknown;
 }
 
 /** Stable error ids used across the API. */

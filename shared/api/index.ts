@@ -7,3 +7,4 @@ export * from './health';
 export * from './cautions';
 export * from './models';
 export * from './results';
+export * from './members';

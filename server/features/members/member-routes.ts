@@ -1,0 +1,49 @@
+import express, { Router } from 'express';
+import type { Sequelize } from 'sequelize';
+import { memberQuerySchema, forcesUploadSchema } from '@shared/api/members';
+import { parseBody, parseId } from '../../http/validate';
+import { currentUser, requireRole, requireSignedIn } from '../../http/require-user';
+import { findEditableProject, findVisibleProject } from '../projects/project-policy';
+import { findRevision } from '../models/model-service';
+import { errors } from '../../http/errors';
+import { listMembers, memberSheet, revisionOverview } from './member-service';
+import { applyForcesCsv } from './forces-service';
+
+/** Members and results of one revision: /api/projects/:projectId/revisions/:revisionId/... */
+export function memberRoutes(sequelize: Sequelize): Router {
+  const router = Router({ mergeParams: true });
+  router.use(requireSignedIn);
+
+  async function visibleRevision(req: express.Request) {
+    const project = await findVisibleProject(currentUser(req), parseId(req.params.projectId, 'That project'));
+    return { project, revision: await findRevision(project.id, parseId(req.params.revisionId, 'That revision')) };
+  }
+
+  router.get('/members', async (req, res) => {
+    const { revision } = await visibleRevision(req);
+    res.json(await listMembers(revision.id, parseBody(memberQuerySchema, req.query)));
+  });
+
+  router.get('/overview', async (req, res) => {
+    const { revision } = await visibleRevision(req);
+    res.json(await revisionOverview(revision.id));
+  });
+
+  router.get('/members/:globalId', async (req, res) => {
+    const { revision } = await visibleRevision(req);
+    const globalId = String(req.params.globalId);
+    if (!/^[0-9A-Za-z_$]{22}$/.test(globalId)) throw errors.notFound('That member');
+    res.json(await memberSheet(revision, globalId));
+  });
+
+  router.post('/forces', requireRole('admin', 'engineer'), express.json({ limit: '25mb' }), async (req, res) => {
+    const user = currentUser(req);
+    const project = await findEditableProject(user, parseId(req.params.projectId, 'That project'));
+    const revision = await findRevision(project.id, parseId(req.params.revisionId, 'That revision'));
+    if (revision.status !== 'done') throw errors.conflict('Forces can be applied once the revision has been imported.');
+    const body = parseBody(forcesUploadSchema, req.body);
+    res.json(await applyForcesCsv(sequelize, user.id, project.id, revision, body.csv));
+  });
+
+  return router;
+}
