@@ -18,7 +18,7 @@ const allowance = { holeAllowance: IN / 16 }; // B4.3b: 1/16 in for imperial wor
 // 2 gauge lines per flange, 4 × 3/4 in bolts per line at 3 in.
 describe('C1: AISC Ex. D.1, W8×21 flange-bolted', () => {
   const w: Section = { shape: 'i', depth: 8.28 * IN, flangeWidth: 5.27 * IN, webThickness: 0.25 * IN, flangeThickness: 0.4 * IN };
-  const holes = [];
+  const holes: Array<{ x: number; y: number; d: number }> = [];
   for (const v of [-1, 1]) for (const u of [-1.375, 1.375]) for (let k = 0; k < 4; k++) {
     holes.push({ x: 3 * k * IN, y: locateOnStrip(w, { u: u * IN, v: v * (8.28 / 2 - 0.2) * IN })!.y, d: (13 / 16) * IN });
   }

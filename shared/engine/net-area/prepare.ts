@@ -35,24 +35,22 @@ export interface PreparedStrip {
  * @param thickness default thickness for holes without t (mm)
  * @param yTolerance same-line tolerance (mm, ≥ 0)
  */
-export function prepareStrip(holes: readonly StripHole[], thickness: number, yTolerance = DEFAULT_Y_TOLERANCE): PreparedStrip {
+export function prepareStrip(holes: readonly StripHole[], thickness: number, yTolerance = DEFAULT_Y_TOLERANCE, reuse?: PreparedStrip): PreparedStrip {
   const n = holes.length;
-  const idx = new Array<number>(n);
-  for (let i = 0; i < n; i++) idx[i] = i;
-  idx.sort((a, b) => holes[a].y - holes[b].y || holes[a].x - holes[b].x || a - b);
-  const order = new Int32Array(n);
-  const x = new Float64Array(n);
-  const y = new Float64Array(n);
-  const d = new Float64Array(n);
-  const t = new Float64Array(n);
-  const w = new Float64Array(n);
-  const line = new Int32Array(n);
-  const lineStart = new Int32Array(n);
+  const fits = reuse !== undefined && reuse.order.length >= n;
+  const order = fits ? reuse.order : new Int32Array(n);
+  const x = fits ? reuse.x : new Float64Array(n);
+  const y = fits ? reuse.y : new Float64Array(n);
+  const d = fits ? reuse.d : new Float64Array(n);
+  const t = fits ? reuse.t : new Float64Array(n);
+  const w = fits ? reuse.w : new Float64Array(n);
+  const line = fits ? reuse.line : new Int32Array(n);
+  const lineStart = fits ? reuse.lineStart : new Int32Array(n);
+  const idx = sortByYX(holes, order);
   let lineNo = -1;
   let start = 0;
   for (let k = 0; k < n; k++) {
     const h = holes[idx[k]];
-    order[k] = idx[k];
     x[k] = h.x;
     y[k] = h.y;
     d[k] = h.d;
@@ -66,4 +64,31 @@ export function prepareStrip(holes: readonly StripHole[], thickness: number, yTo
     lineStart[k] = start;
   }
   return { n, order, x, y, d, t, w, line, lineStart, lineCount: lineNo + 1 };
+}
+
+/**
+ * Hole indices ordered by (y, x, index), written into `out`. Insertion sort for small
+ * patterns (the common case, and allocation-free), the built-in sort beyond 32 holes.
+ */
+function sortByYX(holes: readonly StripHole[], out: Int32Array): Int32Array {
+  const n = holes.length;
+  const before = (a: number, b: number) => {
+    const ha = holes[a];
+    const hb = holes[b];
+    return ha.y < hb.y || (ha.y === hb.y && (ha.x < hb.x || (ha.x === hb.x && a < b)));
+  };
+  if (n > 32) {
+    const idx = Array.from({ length: n }, (_, i) => i).sort((a, b) => holes[a].y - holes[b].y || holes[a].x - holes[b].x || a - b);
+    for (let i = 0; i < n; i++) out[i] = idx[i];
+    return out;
+  }
+  for (let i = 0; i < n; i++) {
+    let k = i;
+    while (k > 0 && before(i, out[k - 1])) {
+      out[k] = out[k - 1];
+      k--;
+    }
+    out[k] = i;
+  }
+  return out;
 }

@@ -127,11 +127,33 @@ function mergeChains(chains: Chain[], grossArea: number): Chain {
  * Same rule as solveNetArea without chain reporting; used by the benchmark.
  */
 export function minNetArea(grossArea: number, thickness: number, holes: readonly StripHole[], yTolerance = DEFAULT_Y_TOLERANCE): number {
-  const p = prepareStrip(holes, thickness, yTolerance);
-  const a = longestChain(p).deduction;
-  const b = bestStraightSection(p).deduction;
+  if (holes.length > scratchSize) grow(holes.length);
+  const p = prepareStrip(holes, thickness, yTolerance, scratch);
+  const a = longestChain(p, scratchA, scratchI).deduction;
+  const b = bestStraightSection(p, scratchB, scratchJ, scratchK).deduction;
   return grossArea - (a > b ? a : b);
 }
+
+// Reused buffers for the fast path: the engine is single-threaded per module instance and
+// minNetArea does not re-enter, so sharing them is safe and saves ~a dozen allocations a call.
+let scratchSize = 0;
+let scratch: PreparedStrip;
+let scratchA: Float64Array<ArrayBuffer>;
+let scratchB: Float64Array<ArrayBuffer>;
+let scratchI: Int32Array<ArrayBuffer>;
+let scratchJ: Int32Array<ArrayBuffer>;
+let scratchK: Int32Array<ArrayBuffer>;
+function grow(n: number): void {
+  scratchSize = Math.max(n, 2 * scratchSize, 16);
+  const m = scratchSize;
+  scratch = { n: 0, order: new Int32Array(m), x: new Float64Array(m), y: new Float64Array(m), d: new Float64Array(m), t: new Float64Array(m), w: new Float64Array(m), line: new Int32Array(m), lineStart: new Int32Array(m), lineCount: 0 };
+  scratchA = new Float64Array(m);
+  scratchB = new Float64Array(m);
+  scratchI = new Int32Array(m);
+  scratchJ = new Int32Array(m);
+  scratchK = new Int32Array(m);
+}
+grow(16);
 
 /**
  * Deduction of one hand-picked chain (mm²): Σ d·t − Σ s²·t/(4g) over consecutive

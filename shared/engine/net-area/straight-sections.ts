@@ -15,21 +15,24 @@ import type { BestChain } from './longest-path.ts';
  * edge is exact: O(n²) time.
  * @returns deduction in mm² and the holes cut (sorted positions, increasing y).
  */
-export function bestStraightSection(p: PreparedStrip, lineBest = new Float64Array(p.lineCount), lineAt = new Int32Array(p.lineCount)): BestChain {
+export function bestStraightSection(p: PreparedStrip, lineBest = new Float64Array(p.lineCount), lineStamp = new Int32Array(p.lineCount), lineAt = new Int32Array(p.lineCount)): BestChain {
   const { n, x, d, w, line } = p;
   let top = 0;
   let topX = 0;
+  lineStamp.fill(-1, 0, p.lineCount);
   for (let i = 0; i < n; i++) {
     const cut = x[i] - d[i] / 2;
-    lineBest.fill(0);
     let sum = 0;
     for (let j = 0; j < n; j++) {
       // Open interval (x − d/2, x + d/2) contains cut + ε.
       if (x[j] - d[j] / 2 <= cut && x[j] + d[j] / 2 > cut) {
         const l = line[j];
-        if (w[j] > lineBest[l]) {
-          sum += w[j] - lineBest[l];
+        // lineStamp marks which cut lineBest[l] belongs to, so nothing is cleared per cut.
+        const prev = lineStamp[l] === i ? lineBest[l] : 0;
+        if (w[j] > prev) {
+          sum += w[j] - prev;
           lineBest[l] = w[j];
+          lineStamp[l] = i;
         }
       }
     }
@@ -40,7 +43,7 @@ export function bestStraightSection(p: PreparedStrip, lineBest = new Float64Arra
   }
   if (top === 0) return { deduction: 0, positions: [] };
   // Recover the holes of the best cut (largest hole per gauge line).
-  lineAt.fill(-1);
+  lineAt.fill(-1, 0, p.lineCount);
   for (let j = 0; j < n; j++) {
     if (x[j] - d[j] / 2 <= topX && x[j] + d[j] / 2 > topX) {
       const l = line[j];
