@@ -25,6 +25,9 @@ export class S3FileStore implements FileStore {
       endpoint: options.endpoint,
       region: options.region,
       forcePathStyle: options.forcePathStyle,
+      // Many S3-compatible stores do not understand the SDK's default streaming checksums.
+      requestChecksumCalculation: 'WHEN_REQUIRED',
+      responseChecksumValidation: 'WHEN_REQUIRED',
       credentials: options.accessKeyId ? { accessKeyId: options.accessKeyId, secretAccessKey: options.secretAccessKey ?? '' } : undefined,
     });
   }
