@@ -19,6 +19,7 @@ export function formatIssue(issue: z.core.$ZodIssue): string {
   return `${path || 'input'}: ${issue.message}`.replace(/\s*\n\s*/g, ' ');
 }
 
+/** Section (see section-types.ts), all dimensions mm > 0. */
 export const sectionSchema = z.discriminatedUnion('shape', [
   z.object({ shape: z.literal('flat'), width: positiveMm(), thickness: positiveMm() }),
   z.object({
@@ -64,6 +65,7 @@ export const netAreaPatternSchema = z.object({
   });
 });
 
+/** Bolt group at the end being checked: diameters and distances mm, fu MPa. */
 export const boltGroupSchema = z.object({
   /** Bolt diameter, mm. */
   diameter: positiveMm(),
@@ -89,6 +91,7 @@ export const boltGroupSchema = z.object({
   deformationConsidered: z.boolean().default(true),
 });
 
+/** One hole on the developed strip, mm. */
 export const holeSchema = z.object({
   /** Along the member axis, mm. */
   x: num('a number (mm)'),
@@ -98,12 +101,14 @@ export const holeSchema = z.object({
   d: positiveMm().optional(),
 });
 
+/** Steel: a grade name, explicit fy/fu (MPa), or both (explicit values win). */
 export const steelSchema = z.object({
   grade: z.string().min(1).optional(),
   fy: positive('MPa').optional(),
   fu: positive('MPa').optional(),
 }).refine((s) => s.grade !== undefined || (s.fy !== undefined && s.fu !== undefined), { error: 'needs a grade or both fy and fu (MPa)' });
 
+/** Design standard selector. */
 export const standardSchema = z.enum(['as4100', 'aisc360', 'en1993'], { error: (iss) => `must be one of as4100, aisc360, en1993, got ${JSON.stringify(iss.input)}` });
 
 /** Everything a member check needs. Forces in N (tension positive), lengths mm, stresses MPa. */
@@ -169,6 +174,9 @@ function fmtW(w: number): string {
   return String(Math.round(w * 100) / 100);
 }
 
+/** Validated member-check input (defaults filled). */
 export type MemberCheckInput = z.output<typeof memberCheckInputSchema>;
+/** Member-check input as callers write it (before defaults). */
 export type MemberCheckInputRaw = z.input<typeof memberCheckInputSchema>;
+/** Validated bolt group. */
 export type BoltGroup = z.output<typeof boltGroupSchema>;
