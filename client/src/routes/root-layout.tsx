@@ -12,15 +12,13 @@ import { MainNav } from './main-nav';
 export function RootLayout() {
   const { user } = useCurrentUser();
   const location = useLocation();
-  const first = useRef(true);
+  const shownPath = useRef(location.pathname);
 
   // After navigating, put focus on the new page's title so screen readers announce it
   // and keyboard users start at the content (not on the first page load).
   useEffect(() => {
-    if (first.current) {
-      first.current = false;
-      return;
-    }
+    if (shownPath.current === location.pathname) return;
+    shownPath.current = location.pathname;
     const title = document.querySelector<HTMLElement>('[data-page-title]') ?? document.getElementById('main');
     title?.focus({ preventScroll: true });
   }, [location.pathname]);
