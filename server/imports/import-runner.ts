@@ -60,7 +60,7 @@ export class ImportRunner {
 
   private async fill(): Promise<void> {
     while (!this.stopping && this.active.size < this.config.imports.workers) {
-      const job = await claimNextJob(this.sequelize, this.owner, this.config.imports.staleMs, this.config.imports.maxAttempts);
+      const job = await claimNextJob(this.owner, this.config.imports.staleMs, this.config.imports.maxAttempts);
       if (!job) return;
       const run = this.runJob(job).finally(() => {
         this.active.delete(run);
