@@ -15,7 +15,7 @@ import type { RelationsIndex } from './relations-index.ts';
 import { enumValue, num, ref, refs, str } from './step-values.ts';
 import type { AnalysisEndForce, ExtractedAnalysisMember, Vec3 } from './types.ts';
 
-const r3 = (v: number) => Math.round(v * 1000) / 1000;
+const r3 = (v: number) => Math.round(v * 1000) / 1000 + 0;
 
 function edgeEnds(ctx: ModelContext, shapeId: number | undefined): [Vec3, Vec3] | null {
   for (const repId of refs(ctx.line(shapeId)?.Representations)) {

@@ -12,7 +12,7 @@ import type { RelationsIndex } from './relations-index.ts';
 import { enumValue, num, ref, refs, str } from './step-values.ts';
 import type { ExtractedBoltGroup, Vec3 } from './types.ts';
 
-const r2 = (v: number) => Math.round(v * 100) / 100;
+const r2 = (v: number) => Math.round(v * 100) / 100 + 0; // + 0 turns -0 into 0
 
 interface Piece {
   /** Frame of one bolt (world, mm). */

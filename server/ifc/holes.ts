@@ -14,7 +14,7 @@ import type { RelationsIndex } from './relations-index.ts';
 import { ref, str } from './step-values.ts';
 import type { ExtractedHole, HoleSource, Vec3 } from './types.ts';
 
-const r2 = (v: number) => Math.round(v * 100) / 100;
+const r2 = (v: number) => Math.round(v * 100) / 100 + 0; // + 0 turns -0 into 0
 
 /** World point and direction → hole in the member frame; null when the axis runs along the member. */
 export function holeInFrame(
@@ -30,8 +30,15 @@ export function holeInFrame(
   const dl = Math.hypot(d[0], d[1], d[2]) || 1;
   if (Math.abs(d[2] / dl) > 0.7) return null;
   const map: Affine2 = frame.profile?.toSection ?? [1, 0, 0, 0, 1, 0];
-  const [u, v] = applyAffine(map, p[0], p[1]);
+  let [u, v] = applyAffine(map, p[0], p[1]);
   const axis = sectionAxisOf(map, d[0], d[1]);
+  const section = frame.profile?.section;
+  if (source === 'bolt-derived' && section) {
+    // A bolt's centre is not the plate's: put the through-thickness coordinate mid-plate.
+    const mid = section.shape === 'flat' ? 0 : section.shape === 'angle' ? section.thickness / 2 : null;
+    if (mid !== null && axis === 'v') v = mid;
+    if (mid !== null && axis === 'u') u = mid;
+  }
   return {
     x: r2(frame.sSign * p[2]),
     u: r2(u),

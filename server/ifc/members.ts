@@ -22,7 +22,7 @@ export interface MemberWork {
   frame: MemberFrame;
 }
 
-const r2 = (v: number) => Math.round(v * 100) / 100;
+const r2 = (v: number) => Math.round(v * 100) / 100 + 0; // + 0 turns -0 into 0
 const round3 = (v: [number, number, number]): [number, number, number] => [r2(v[0]), r2(v[1]), r2(v[2])];
 
 function usefulEnum(x: unknown): string | null {

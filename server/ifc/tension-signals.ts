@@ -92,6 +92,8 @@ export function tensionSignals(i: SignalInput): { signals: string[]; candidate: 
 
   const reason = notSteelReason(i);
   const plateLike = i.ifcClass.toUpperCase().startsWith('IFCPLATE') || (i.name !== null && PLATE_NAMES.test(i.name.trim()));
-  const candidate = !reason && (strong.length > 0 || (weak.length === 2 && !plateLike));
+  // Plates sit in trusses and braced frames too; only their own type or name can make them candidates.
+  const own = plateLike ? strong.filter((x) => !x.startsWith('assembly:')) : strong;
+  const candidate = !reason && (own.length > 0 || (weak.length === 2 && !plateLike));
   return { signals: [...strong, ...weak], candidate, notSteelReason: reason };
 }
