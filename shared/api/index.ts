@@ -8,3 +8,4 @@ export * from './cautions';
 export * from './models';
 export * from './results';
 export * from './members';
+export * from './overrides';

@@ -1,4 +1,5 @@
 import type { Section } from '../engine/section-types.ts';
+import type { ActiveOverrides } from './overrides';
 
 /** A hole of one end on the developed strip, as checked. mm. */
 export interface StripHole {
@@ -38,4 +39,6 @@ export interface MemberDetail {
   /** The engine input of the governing end, kept so a member can be re-checked without the file. */
   checkInput: unknown | null;
   warnings: string[];
+  /** Engineer's overrides in force, with who set them, when and why. */
+  overrides?: ActiveOverrides;
 }

@@ -16,7 +16,8 @@ export const projectSchema = z.object({
   description: z.string(),
   standard: z.enum(STANDARDS),
   defaultGrade: z.string(),
-  memberCount: z.number().int(),
+  /** People with access to the project (not steel members). */
+  peopleCount: z.number().int(),
   createdAt: z.string(),
   updatedAt: z.string(),
 });

@@ -57,7 +57,7 @@ export async function applyForcesCsv(sequelize: Sequelize, actorId: number, proj
     const targets = await MemberModel.findAll({ where: { id: { [Op.in]: memberIds } }, transaction });
     for (const member of targets) {
       const { force, source } = designForceFrom(all.filter((f) => f.memberId === member.id));
-      if (await recheckMember(member, revision.standard, { force, forceSource: source }, transaction)) rechecked++;
+      if (await recheckMember(member, revision.standard, { force, source }, transaction)) rechecked++;
     }
     await AuditEntryModel.create(
       { actorId, projectId, action: 'forces.applied', subject: `revision:${revision.id}`, detail: { unit: parsed.unit, rows: matched.length, members: memberIds.length }, reason: null },

@@ -1,6 +1,7 @@
 import express, { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { memberQuerySchema, forcesUploadSchema } from '@shared/api/members';
+import { memberOverrideRequestSchema } from '@shared/api/overrides';
 import { parseBody, parseId } from '../../http/validate';
 import { currentUser, requireRole, requireSignedIn } from '../../http/require-user';
 import { findEditableProject, findVisibleProject } from '../projects/project-policy';
@@ -8,6 +9,8 @@ import { findRevision } from '../models/model-service';
 import { errors } from '../../http/errors';
 import { listMembers, memberSheet, revisionOverview } from './member-service';
 import { applyForcesCsv } from './forces-service';
+import { memberAudit, overrideMember } from './override-service';
+import { presentMemberRow } from './member-presenter';
 
 /** Members and results of one revision: /api/projects/:projectId/revisions/:revisionId/... */
 export function memberRoutes(sequelize: Sequelize): Router {
@@ -34,6 +37,20 @@ export function memberRoutes(sequelize: Sequelize): Router {
     const globalId = String(req.params.globalId);
     if (!/^[0-9A-Za-z_$]{22}$/.test(globalId)) throw errors.notFound('That member');
     res.json(await memberSheet(revision, globalId));
+  });
+
+  router.get('/members/:globalId/audit', async (req, res) => {
+    const { revision } = await visibleRevision(req);
+    res.json({ entries: await memberAudit(revision.id, String(req.params.globalId)) });
+  });
+
+  router.patch('/members/:globalId/overrides', requireRole('admin', 'engineer'), async (req, res) => {
+    const user = currentUser(req);
+    const project = await findEditableProject(user, parseId(req.params.projectId, 'That project'));
+    const revision = await findRevision(project.id, parseId(req.params.revisionId, 'That revision'));
+    const body = parseBody(memberOverrideRequestSchema, req.body);
+    const member = await overrideMember(sequelize, user, project.id, revision, String(req.params.globalId), body);
+    res.json(presentMemberRow(member));
   });
 
   router.post('/forces', requireRole('admin', 'engineer'), express.json({ limit: '25mb' }), async (req, res) => {

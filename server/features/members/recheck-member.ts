@@ -2,30 +2,54 @@ import type { Transaction } from 'sequelize';
 import { checkMemberRaw, type MemberCheckInputRaw } from '@shared/engine';
 import { bandOf } from '@shared/api/results';
 import type { MemberDetail } from '@shared/api/member-detail';
+import type { ActiveOverrides } from '@shared/api/overrides';
 import { MemberModel } from '../../db/models/member';
 import { CheckResultModel } from '../../db/models/check-result';
 import { ENGINE_VERSION } from '../../imports/engine-version';
 
+/** The stored engine input with the engineer's overrides applied. */
+export function applyOverrides(input: MemberCheckInputRaw, overrides: ActiveOverrides | undefined): MemberCheckInputRaw {
+  if (!overrides) return input;
+  const steel = { ...input.steel };
+  if (overrides.grade) {
+    steel.grade = String(overrides.grade.value);
+    delete steel.fy;
+    delete steel.fu;
+  }
+  if (overrides.fy && overrides.fu) Object.assign(steel, { fy: Number(overrides.fy.value), fu: Number(overrides.fu.value) });
+  return {
+    ...input,
+    steel,
+    overrides: {
+      ...input.overrides,
+      ...(overrides.kt ? { kt: Number(overrides.kt.value) } : {}),
+      ...(overrides.U ? { U: Number(overrides.U.value) } : {}),
+      ...(overrides.holeDiameter ? { holeDiameter: Number(overrides.holeDiameter.value) } : {}),
+    },
+  };
+}
+
 /**
- * Runs the engine again for one member from its stored input, with a new design force
- * (N, tension positive; null = unknown) and optional input changes, and stores the result.
- * Returns false when the member has no stored input (its section was never understood).
+ * Runs the engine again for one member from its stored input and stores the result.
+ * `modelForce` is the design force from the model or a forces file (N, tension positive);
+ * an engineer's force override beats it. Returns false when the member has no stored
+ * input (its section was never understood).
  */
 export async function recheckMember(
   member: MemberModel,
   standard: string,
-  change: { force: number | null; forceSource: string | null; input?: (input: MemberCheckInputRaw) => MemberCheckInputRaw },
+  modelForce: { force: number | null; source: string | null },
   transaction: Transaction,
 ): Promise<boolean> {
   const detail = member.detail as MemberDetail;
-  member.designForceN = change.force;
-  member.forceSource = change.forceSource;
+  const forced = detail.overrides?.designForceN;
+  member.designForceN = forced ? Number(forced.value) : modelForce.force;
+  member.forceSource = forced ? 'override' : modelForce.source;
   if (!detail.checkInput) {
     await member.save({ transaction });
     return false;
   }
-  const base = { ...(detail.checkInput as MemberCheckInputRaw), force: change.force };
-  const input = change.input ? change.input(base) : base;
+  const input = applyOverrides({ ...(detail.checkInput as MemberCheckInputRaw), force: member.designForceN }, detail.overrides);
   const result = checkMemberRaw(input);
   member.set({
     netAreaMm2: result.netArea,

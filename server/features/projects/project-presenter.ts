@@ -2,14 +2,14 @@ import type { Project, ProjectMember } from '@shared/api/projects';
 import type { ProjectModel } from '../../db/models/project';
 import type { UserModel } from '../../db/models/user';
 
-export function presentProject(project: ProjectModel, memberCount: number): Project {
+export function presentProject(project: ProjectModel, peopleCount: number): Project {
   return {
     id: project.id,
     name: project.name,
     description: project.description,
     standard: project.standard,
     defaultGrade: project.defaultGrade,
-    memberCount,
+    peopleCount,
     createdAt: project.createdAt.toISOString(),
     updatedAt: project.updatedAt.toISOString(),
   };

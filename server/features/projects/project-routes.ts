@@ -10,7 +10,7 @@ import {
   createProject,
   listProjectMembers,
   listVisibleProjects,
-  memberCounts,
+  peopleCounts,
   removeProjectMember,
   updateProject,
 } from './project-service';
@@ -21,7 +21,7 @@ export function projectRoutes(sequelize: Sequelize): Router {
 
   router.get('/', async (req, res) => {
     const projects = await listVisibleProjects(currentUser(req));
-    const counts = await memberCounts(projects.map((p) => p.id));
+    const counts = await peopleCounts(projects.map((p) => p.id));
     res.json({ projects: projects.map((p) => presentProject(p, counts.get(p.id) ?? 0)) });
   });
 
@@ -33,7 +33,7 @@ export function projectRoutes(sequelize: Sequelize): Router {
 
   router.get('/:projectId', async (req, res) => {
     const project = await findVisibleProject(currentUser(req), parseId(req.params.projectId, 'That project'));
-    const counts = await memberCounts([project.id]);
+    const counts = await peopleCounts([project.id]);
     res.json(presentProject(project, counts.get(project.id) ?? 0));
   });
 
@@ -42,7 +42,7 @@ export function projectRoutes(sequelize: Sequelize): Router {
     const project = await findEditableProject(user, parseId(req.params.projectId, 'That project'));
     const input = parseBody(updateProjectRequestSchema, req.body);
     const updated = await updateProject(sequelize, user, project, input);
-    const counts = await memberCounts([project.id]);
+    const counts = await peopleCounts([project.id]);
     res.json(presentProject(updated, counts.get(project.id) ?? 0));
   });
 

@@ -8,7 +8,7 @@ import { AuditEntryModel } from '../../db/models/audit-entry';
 import { errors } from '../../http/errors';
 
 /** Member counts for several projects in one query. */
-export async function memberCounts(projectIds: number[]): Promise<Map<number, number>> {
+export async function peopleCounts(projectIds: number[]): Promise<Map<number, number>> {
   if (!projectIds.length) return new Map();
   const rows = (await ProjectMemberModel.findAll({
     attributes: ['projectId', [fn('COUNT', col('user_id')), 'n']],
