@@ -5,5 +5,6 @@ cd "$(dirname "$0")/.."
 source scripts/lib/bootstrap.sh
 ensure_mariadb
 ensure_chromium
+ensure_xmllint
 ensure_node_modules
 exec node --import tsx scripts/test.ts "$@"

@@ -35,6 +35,11 @@ ensure_chromium() {
   apt_install chromium
 }
 
+# The export tests validate every BCF XML file against the buildingSMART schemas.
+ensure_xmllint() {
+  command -v xmllint >/dev/null || apt_install libxml2-utils
+}
+
 # npm ci when node_modules is missing or was installed from another lock file.
 ensure_node_modules() {
   local want have=""
