@@ -65,6 +65,39 @@ interface Candidate {
   world: Box3;
 }
 
+/** Uniform grid over member boxes so each bolt only tests members near it (large models). */
+class BoxGrid {
+  private cells = new Map<string, Candidate[]>();
+  private readonly size = 2000; // mm
+
+  constructor(candidates: Candidate[]) {
+    for (const c of candidates) for (const key of this.keys(c.world.min, c.world.max)) {
+      const list = this.cells.get(key);
+      if (list) list.push(c);
+      else this.cells.set(key, [c]);
+    }
+  }
+
+  private keys(min: Vec3, max: Vec3): string[] {
+    const lo = min.map((v) => Math.floor(v / this.size));
+    const hi = max.map((v) => Math.floor(v / this.size));
+    // Very long members span many cells; cap the walk and let them fall back to a shared cell.
+    if ((hi[0] - lo[0] + 1) * (hi[1] - lo[1] + 1) * (hi[2] - lo[2] + 1) > 4096) return ['*'];
+    const out: string[] = [];
+    for (let i = lo[0]; i <= hi[0]; i++) for (let j = lo[1]; j <= hi[1]; j++) for (let k = lo[2]; k <= hi[2]; k++) out.push(`${i},${j},${k}`);
+    return out;
+  }
+
+  near(bolt: BoltWork): Candidate[] {
+    const found = new Set<Candidate>(this.cells.get('*') ?? []);
+    const r = bolt.halfLength;
+    for (const p of bolt.group.positions) {
+      for (const key of this.keys([p[0] - r, p[1] - r, p[2] - r], [p[0] + r, p[1] + r, p[2] + r])) for (const c of this.cells.get(key) ?? []) found.add(c);
+    }
+    return [...found].sort((a, b) => a.work.member.expressId - b.work.member.expressId);
+  }
+}
+
 /** Bolt positions of a group that cross this member. */
 function crossing(bolt: BoltWork, c: Candidate): Vec3[] {
   const hits: Vec3[] = [];
@@ -90,6 +123,7 @@ export function associateBolts(ctx: ModelContext, ix: RelationsIndex, members: M
     if (local) candidates.push({ work: w, local, world: worldBox(w, local) });
   }
   const candByExpress = new Map(candidates.map((c) => [c.work.member.expressId, c]));
+  const grid = new BoxGrid(candidates);
 
   for (const bolt of bolts) {
     const g = bolt.group;
@@ -109,7 +143,7 @@ export function associateBolts(ctx: ModelContext, ix: RelationsIndex, members: M
         linked = (hit.length ? hit : siblings).map((work) => ({ c: candByExpress.get(work.member.expressId), work }));
         g.associatedBy = 'assembly';
       } else {
-        linked = candidates.filter((c) => crossing(bolt, c).length > 0).map((c) => ({ c, work: c.work }));
+        linked = grid.near(bolt).filter((c) => crossing(bolt, c).length > 0).map((c) => ({ c, work: c.work }));
         if (linked.length) g.associatedBy = 'geometry';
       }
     }

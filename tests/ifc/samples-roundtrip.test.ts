@@ -102,7 +102,24 @@ describe('committed sample files', () => {
     expect(cases.size).toBeGreaterThanOrEqual(4);
   });
 
-  it('makeSyntheticModel(n) writes n members that read back', async () => {
+  it('makeSyntheticModel(n) writes n members that read back, reporting progress per phase', async () => {
+    const calls: [string, number][] = [];
+    const m = await readIfcModel(await makeSyntheticModel(600), { progress: (phase, f) => calls.push([phase, f]) });
+    expect(m.members).toHaveLength(600);
+    expect(calls[0]).toEqual(['reading', 0]);
+    expect(calls.at(-1)).toEqual(['extracting', 1]);
+    expect(calls.filter(([p]) => p === 'extracting').length).toBeGreaterThan(2);
+    expect(calls.every(([, f]) => f >= 0 && f <= 1)).toBe(true);
+  });
+
+  it('a configured force property set is read instead of the default one', async () => {
+    const m = await readIfcModel(await makeSyntheticModel(3), { forcePsetNames: [{ pset: 'Gaugeline_MemberForces', force: 'AxialForce' }] });
+    expect(m.members.every((x) => x.forces.every((f) => f.loadCase === 'default'))).toBe(true);
+    const none = await readIfcModel(await makeSyntheticModel(3), { forcePsetNames: [{ pset: 'Other_Forces', force: 'N' }] });
+    expect(none.members.every((x) => x.forces.length === 0)).toBe(true);
+  });
+
+  it('makeSyntheticModel(n) members carry their holes', async () => {
     const m = await readIfcModel(await makeSyntheticModel(60));
     expect(m.members).toHaveLength(60);
     expect(m.members.every((x) => x.holes.length === 4)).toBe(true);
