@@ -1,6 +1,6 @@
 // npm test (after scripts/test.sh installed what was missing): lint, type-check, then every
 // vitest suite (unit, ifc, api, e2e) against a throwaway MariaDB on a free port.
-import { mkdtempSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
 import { createServer } from 'node:net';
 import { randomBytes } from 'node:crypto';
@@ -48,8 +48,9 @@ async function main(): Promise<number> {
   // The test user may create databases: every API/e2e test file works in a database of its own.
   await ensureDatabase(db, { name: 'gaugeline_test', user: 'gaugeline_test', password, global: true });
   console.log(`\nThrowaway MariaDB on 127.0.0.1:${port} (${dir})`);
+  const report = path.join(dir, 'vitest-report.json');
   try {
-    return step('tests', node, ['node_modules/vitest/vitest.mjs', 'run', ...vitestArgs], {
+    const code = step('tests', node, ['node_modules/vitest/vitest.mjs', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...vitestArgs], {
       ...process.env,
       TEST_DB_HOST: '127.0.0.1',
       TEST_DB_PORT: String(port),
@@ -57,10 +58,20 @@ async function main(): Promise<number> {
       TEST_DB_PASSWORD: password,
       TEST_DB_SOCKET: db.socket,
     });
+    printClosingLine(report);
+    return code;
   } finally {
     await db.stop();
     rmSync(dir, { recursive: true, force: true });
   }
+}
+
+/** One plain closing line that any CI log reader understands. */
+function printClosingLine(reportPath: string): void {
+  if (!existsSync(reportPath)) return;
+  const r = JSON.parse(readFileSync(reportPath, 'utf8')) as { numPassedTests: number; numFailedTests: number; numPendingTests: number; numTodoTests: number };
+  const skipped = r.numPendingTests + r.numTodoTests;
+  console.log(`\ngaugeline: ${r.numPassedTests} passed, ${r.numFailedTests} failed${skipped ? `, ${skipped} skipped` : ''}`);
 }
 
 main().then(
