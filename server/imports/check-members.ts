@@ -8,6 +8,8 @@ import type { ExtractedHole, ExtractedMember, ExtractedModel } from '../ifc/type
 export interface CheckSettings {
   standard: StandardId;
   defaultGrade: string;
+  /** Forces from an engineer's forces table by GlobalId (N, tension positive); they beat the model's. */
+  tableForces?: Map<string, { loadCase: string; axialN: number }[]>;
 }
 
 /** One member ready to store: summary columns, detail JSON, forces, and the governing result. */
@@ -91,7 +93,11 @@ function steelSpec(m: ExtractedMember, settings: CheckSettings, warnings: string
 export function checkExtractedMember(m: ExtractedMember, settings: CheckSettings, boltGrades: Map<string, string>): MemberRecord {
   const warnings: string[] = [];
   const ends = endsOf(m, warnings);
-  const { force, source } = designForceFrom(m.forces.map((f) => ({ loadCase: f.loadCase, axialN: f.axialForce, source: f.source })));
+  const forces = [
+    ...m.forces.map((f) => ({ loadCase: f.loadCase, axialN: f.axialForce, source: f.source as string })),
+    ...(settings.tableForces?.get(m.globalId) ?? []).map((f) => ({ ...f, source: 'forces-csv' })),
+  ];
+  const { force, source } = designForceFrom(forces);
   const isTension = m.isTensionCandidate || (force !== null && force > 0);
   const { spec, fromDefault } = steelSpec(m, settings, warnings);
   const section = m.profile.section;
@@ -124,7 +130,7 @@ export function checkExtractedMember(m: ExtractedMember, settings: CheckSettings
       }
     });
   }
-  if (isTension && force === null) warnings.push(m.forces.length ? 'No load case puts this member in tension.' : 'No design force is known for this member.');
+  if (isTension && force === null) warnings.push(forces.length ? 'No load case puts this member in tension.' : 'No design force is known for this member.');
 
   const result: CheckResult | null = (best as { result: CheckResult } | null)?.result ?? null;
   const steel = result ? steelFromAssumptions(result, spec, fromDefault) : null;
@@ -163,7 +169,7 @@ export function checkExtractedMember(m: ExtractedMember, settings: CheckSettings
     band: bandOf(utilisation),
     warningCount: detail.warnings.length,
     detail,
-    forces: m.forces.map((f) => ({ loadCase: f.loadCase, axialN: f.axialForce, source: f.source })),
+    forces,
     result,
   };
 }

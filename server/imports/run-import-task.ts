@@ -7,6 +7,8 @@ import { readUploadBytes } from './read-upload-bytes';
 import { ImportFailure, type FailureData } from './import-failure';
 import { checkModel, type MemberRecord } from './check-members';
 import { summarise } from './summarise';
+import { matchForceRows } from './match-force-rows';
+import type { ForceRow } from '@shared/forces/parse-forces-csv';
 
 export interface ImportTask {
   filePath: string;
@@ -15,6 +17,8 @@ export interface ImportTask {
   defaultGrade: string;
   inflateLimitBytes: number;
   progressPort?: MessagePort;
+  /** Rows of a forces table to apply before checking (the command line's --forces). */
+  forceRows?: ForceRow[];
 }
 
 export type ImportOutcome =
@@ -44,7 +48,14 @@ export async function runImportTask(task: ImportTask): Promise<ImportOutcome> {
     timings.readAndExtractMs = performance.now() - t0;
     t0 = performance.now();
     post('checking', 0);
-    const members = checkModel(model, { standard: task.standard, defaultGrade: task.defaultGrade }, (f) => post('checking', f));
+    let tableForces: Map<string, { loadCase: string; axialN: number }[]> | undefined;
+    if (task.forceRows) {
+      const matched = matchForceRows(task.forceRows, model.members.filter((m) => !m.notSteelReason));
+      const first = matched.problems[0];
+      if (first) throw new ImportFailure('forces.rejected', `The forces file does not fit the model: line ${first.line}: ${first.message}${matched.problems.length > 1 ? ` (and ${matched.problems.length - 1} more)` : ''}.`);
+      tableForces = matched.byGlobalId;
+    }
+    const members = checkModel(model, { standard: task.standard, defaultGrade: task.defaultGrade, tableForces }, (f) => post('checking', f));
     timings.checkMs = performance.now() - t0;
     return { ok: true, summary: summarise(model, members, timings), members };
   } catch (err) {
