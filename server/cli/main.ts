@@ -10,6 +10,7 @@ type Command = (args: string[]) => Promise<void>;
 const commands: Record<string, () => Promise<{ run: Command }>> = {
   'net-area': () => import('./commands/net-area.ts'),
   'check-member': () => import('./commands/check-member.ts'),
+  check: () => import('./commands/check.ts'),
 };
 
 async function main(argv: string[]): Promise<number> {

@@ -8,7 +8,6 @@ export type V3 = [number, number, number];
 /** Escapes text and attribute values; drops characters XML 1.0 does not allow. */
 export function xml(s: string | number): string {
   return String(s)
-    // eslint-disable-next-line no-control-regex
     .replace(/[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/g, '')
     .replace(/&/g, '&amp;')
     .replace(/</g, '&lt;')
