@@ -16,6 +16,7 @@ import type { Logger } from './logger';
 import type { FileStore } from './storage/file-store';
 import { modelRoutes } from './features/models/model-routes';
 import { memberRoutes } from './features/members/member-routes';
+import { geometryRoutes } from './features/geometry/geometry-routes';
 import { exportRoutes } from './features/exports/export-routes';
 
 export interface AppHandle {
@@ -71,6 +72,7 @@ export function createApp(config: AppConfig, sequelize: Sequelize, logger: Logge
   api.use('/session', sessionRoutes(pp, config));
   api.use('/users', userRoutes(sequelize));
   api.use('/projects/:projectId/revisions/:revisionId/exports', exportRoutes(sequelize, services.store));
+  api.use('/projects/:projectId/revisions/:revisionId/geometry', geometryRoutes(services.store));
   api.use('/projects/:projectId/revisions/:revisionId', memberRoutes(sequelize));
   api.use('/projects/:projectId', modelRoutes(sequelize, config, services.store, services.onImportQueued));
   api.use('/projects', projectRoutes(sequelize));

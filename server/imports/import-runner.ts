@@ -1,5 +1,7 @@
 import { MessageChannel } from 'node:worker_threads';
-import { hostname } from 'node:os';
+import { hostname, tmpdir } from 'node:os';
+import { promises as fsp } from 'node:fs';
+import path from 'node:path';
 import { randomBytes } from 'node:crypto';
 import Piscina from 'piscina';
 import type { Sequelize } from 'sequelize';
@@ -13,6 +15,7 @@ import type { StandardId } from '@shared/api/projects';
 import { claimNextJob, failJob, heartbeat, reportProgress } from './job-claims';
 import { storeOutcome } from './store-outcome';
 import type { ImportOutcome, ImportTask, ProgressMessage } from './run-import-task';
+import { geometryKey } from '../features/geometry/geometry-key';
 
 /**
  * Runs import jobs in worker threads, never on the request thread. Jobs are claimed
@@ -105,6 +108,7 @@ export class ImportRunner {
         return;
       }
       await reportProgress(job.id, this.owner, 'checking', 0.99);
+      if (outcome.geometry) await this.storeGeometry(job.id, outcome.geometry, outcome.summary);
       const kept = await storeOutcome(this.sequelize, job.id, this.owner, job.standard, outcome.summary, outcome.members);
       if (!kept) this.logger.warn(`import ${job.id}: another process took the job over; this result was dropped`);
     } catch (err) {
@@ -123,6 +127,20 @@ export class ImportRunner {
       clearInterval(beat);
       channel.port1.close();
       await local?.release().catch(() => undefined);
+    }
+  }
+
+  /** Display geometry goes to the file store under a key derived from the revision; failing here only warns. */
+  private async storeGeometry(revisionId: number, bytes: Uint8Array, summary: { warnings: { code: string; message: string; count: number; examples: string[] }[] }): Promise<void> {
+    const tmp = path.join(tmpdir(), `gaugeline-geometry-${revisionId}-${randomBytes(4).toString('hex')}.bin`);
+    try {
+      await fsp.writeFile(tmp, bytes);
+      await this.store.put(geometryKey(revisionId), tmp);
+    } catch (err) {
+      this.logger.warn(`import ${revisionId}: display geometry not stored: ${(err as Error).message}`);
+      summary.warnings.push({ code: 'geometry.failed', message: 'The 3D view of this revision could not be stored; results are not affected.', count: 1, examples: [] });
+    } finally {
+      await fsp.rm(tmp, { force: true }).catch(() => undefined);
     }
   }
 

@@ -7,6 +7,8 @@ import { readUploadBytes } from './read-upload-bytes';
 import { ImportFailure, type FailureData } from './import-failure';
 import { checkModel, type MemberRecord } from './check-members';
 import { summarise } from './summarise';
+import { buildDisplayGeometry } from '../ifc/display-geometry';
+import { move, transferableSymbol, valueSymbol } from 'piscina';
 import { matchForceRows } from './match-force-rows';
 import type { ForceRow } from '@shared/forces/parse-forces-csv';
 
@@ -22,7 +24,7 @@ export interface ImportTask {
 }
 
 export type ImportOutcome =
-  | { ok: true; summary: RevisionSummary; members: MemberRecord[] }
+  | { ok: true; summary: RevisionSummary; members: MemberRecord[]; /** Display geometry file (shared/geometry), or null when it could not be built. */ geometry: Uint8Array | null }
   | { ok: false; failure: FailureData };
 
 export interface ProgressMessage {
@@ -57,7 +59,19 @@ export async function runImportTask(task: ImportTask): Promise<ImportOutcome> {
     }
     const members = checkModel(model, { standard: task.standard, defaultGrade: task.defaultGrade, tableForces }, (f) => post('checking', f));
     timings.checkMs = performance.now() - t0;
-    return { ok: true, summary: summarise(model, members, timings), members };
+    t0 = performance.now();
+    // Display geometry for the 3D view. Its failure is a warning, never a failed import.
+    let geometry: Uint8Array | null = null;
+    let geometryProblem: string | null = null;
+    try {
+      geometry = (await buildDisplayGeometry(bytes)).bytes;
+    } catch (e) {
+      geometryProblem = e instanceof Error ? e.message : String(e);
+    }
+    timings.geometryMs = performance.now() - t0;
+    const summary = summarise(model, members, timings);
+    if (geometryProblem !== null) summary.warnings.push({ code: 'geometry.failed', message: 'The 3D view of this revision could not be prepared; results are not affected.', count: 1, examples: [geometryProblem.slice(0, 200)] });
+    return transferGeometry({ ok: true, summary, members, geometry });
   } catch (err) {
     if (err instanceof ImportFailure) return { ok: false, failure: { id: err.id, message: err.message } };
     if (isIfcReadError(err)) return { ok: false, failure: { id: err.id, message: err.message } };
@@ -65,4 +79,12 @@ export async function runImportTask(task: ImportTask): Promise<ImportOutcome> {
   } finally {
     task.progressPort?.close();
   }
+}
+
+/** Lets piscina move the geometry bytes to the main thread instead of copying them. */
+function transferGeometry(outcome: ImportOutcome): ImportOutcome {
+  if (!outcome.ok || !outcome.geometry) return outcome;
+  Object.defineProperty(outcome, transferableSymbol, { value: [outcome.geometry.buffer] });
+  Object.defineProperty(outcome, valueSymbol, { value: { ...outcome } });
+  return move(outcome as never) as ImportOutcome;
 }

@@ -1,0 +1,103 @@
+// Display geometry of a revision: prepared during the import, served to any project member
+// with a strong ETag and a year of private caching, 304 on If-None-Match, 404 elsewhere.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type request from 'supertest';
+import { startTestApp, type TestApp } from '../support/test-app';
+import { signIn, anonymous, DEMO, type Caller } from '../support/api-client';
+import { waitFor } from '../support/wait-for';
+import { parseDisplayGeometry } from '../../shared/geometry/display-geometry-format';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
+const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
+
+let app: TestApp;
+let engineer: Caller;
+let viewer: Caller;
+let projectId: number;
+let revisionId: number;
+let base: string;
+
+/** Reads the body as bytes whatever the content type. */
+const binary = (req: request.Test) =>
+  req.buffer(true).parse((res, done) => {
+    const chunks: Buffer[] = [];
+    res.on('data', (c: Buffer) => chunks.push(c));
+    res.on('end', () => done(null, Buffer.concat(chunks)));
+  });
+
+beforeAll(async () => {
+  app = await startTestApp({ IMPORT_POLL_MS: '100' });
+  engineer = await signIn(app.url, DEMO.engineer);
+  viewer = await signIn(app.url, DEMO.viewer);
+  projectId = (await engineer.call('get', '/api/projects')).body.projects[0].id;
+  const up = await engineer.agent.post(`/api/projects/${projectId}/uploads`).set('X-CSRF-Token', engineer.csrf).attach('file', SAMPLE, 'kestrel-yard-shed.ifc');
+  expect(up.status).toBe(201);
+  revisionId = up.body.revision.id;
+  const done = await waitFor(() => engineer.call('get', `/api/projects/${projectId}/revisions/${revisionId}`), (r) => ['done', 'failed'].includes(r.body.status), 90_000);
+  expect(done.body.status).toBe('done');
+  base = `/api/projects/${projectId}/revisions/${revisionId}`;
+});
+afterAll(async () => {
+  await app?.stop();
+});
+
+describe('GET …/revisions/:revisionId/geometry', () => {
+  it('serves the display geometry with a strong ETag and long private caching', async () => {
+    const res = await binary(viewer.agent.get(`${base}/geometry`));
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/^application\/octet-stream/);
+    expect(res.headers['cache-control']).toBe('private, max-age=31536000, immutable');
+    const body = res.body as Buffer;
+    const etag = res.headers.etag as string;
+    expect(etag).toBe(`"${createHash('sha256').update(body).digest('base64url')}"`);
+    expect(etag.startsWith('W/')).toBe(false);
+    const g = parseDisplayGeometry(new Uint8Array(body));
+    const members = (await viewer.call('get', `${base}/members?scope=all&pageSize=500`)).body.members as { globalId: string }[];
+    const ids = new Set(g.header.entries.map((e) => e.globalId));
+    expect(members.length).toBeGreaterThan(5);
+    for (const m of members) expect(ids.has(m.globalId), m.globalId).toBe(true);
+  });
+
+  it('answers 304 when the ETag matches, and 200 again when it does not', async () => {
+    const first = await binary(engineer.agent.get(`${base}/geometry`));
+    const etag = first.headers.etag as string;
+    const again = await engineer.agent.get(`${base}/geometry`).set('If-None-Match', etag);
+    expect(again.status).toBe(304);
+    expect(again.headers.etag).toBe(etag);
+    const list = await engineer.agent.get(`${base}/geometry`).set('If-None-Match', `"other", ${etag}`);
+    expect(list.status).toBe(304);
+    const stale = await binary(engineer.agent.get(`${base}/geometry`).set('If-None-Match', '"something-else"'));
+    expect(stale.status).toBe(200);
+    expect((stale.body as Buffer).length).toBe((first.body as Buffer).length);
+  });
+
+  it('hides it from people outside the project and from other projects’ paths', async () => {
+    const admin = await signIn(app.url, DEMO.admin);
+    const other = await admin.call('post', '/api/projects', { name: 'Somewhere else' });
+    expect(other.status).toBe(201);
+    // The revision is not in the other project, even for an admin who sees both.
+    const wrongProject = await admin.call('get', `/api/projects/${other.body.id}/revisions/${revisionId}/geometry`);
+    expect(wrongProject.status).toBe(404);
+    // The viewer is not a member of the other project.
+    expect((await viewer.call('get', `/api/projects/${other.body.id}/revisions/${revisionId}/geometry`)).status).toBe(404);
+    expect((await viewer.call('get', `/api/projects/${projectId}/revisions/999999/geometry`)).status).toBe(404);
+    expect((await (await anonymous(app.url)).call('get', `${base}/geometry`)).status).toBe(401);
+  });
+
+  it('says geometry.unavailable when a revision has none', async () => {
+    const stored = path.join(root, '.test-data', app.dbName, 'uploads/store/geometry', `${revisionId}-v1.bin`);
+    const { renameSync } = await import('node:fs');
+    renameSync(stored, `${stored}.away`);
+    try {
+      const res = await viewer.call('get', `/api/projects/${projectId}/revisions/${revisionId}/geometry`);
+      expect(res.status).toBe(404);
+      expect(res.body.error).toBe('geometry.unavailable');
+    } finally {
+      renameSync(`${stored}.away`, stored);
+    }
+  });
+});
