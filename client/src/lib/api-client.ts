@@ -18,6 +18,8 @@ export class ApiError extends Error {
   /** Stable id from the server (see ERROR_IDS), or 'network' / 'response.invalid' for client-side failures. */
   readonly code: string;
   readonly fields: Record<string, string>;
+  /** Structured detail the server sent with the refusal (e.g. a forces file's per-row report). */
+  readonly details: unknown;
 
   constructor(status: number, body: ApiErrorBody) {
     super(body.message);
@@ -25,6 +27,7 @@ export class ApiError extends Error {
     this.status = status;
     this.code = body.error;
     this.fields = body.fields ?? {};
+    this.details = body.details;
   }
 
   is(code: string): boolean {
@@ -85,6 +88,7 @@ async function readError(response: Response): Promise<ApiError> {
       error: b.error,
       message: typeof b.message === 'string' && b.message ? b.message : `The server answered ${response.status}.`,
       fields: b.fields && typeof b.fields === 'object' ? b.fields : undefined,
+      details: b.details,
     });
   }
   const message =
@@ -146,6 +150,63 @@ async function send<S extends z.ZodType>(
   return parsed.data;
 }
 
+export interface UploadOptions {
+  /** Called as the request body goes out: bytes sent and total bytes. */
+  onProgress?: (sent: number, total: number) => void;
+  signal?: AbortSignal;
+}
+
+/**
+ * A multipart POST (file uploads). XMLHttpRequest rather than fetch, for upload
+ * progress events. Same rules as every other write: X-CSRF-Token, one retry with a
+ * fresh token on a stale-token refusal, ApiError with the server's message on failure.
+ */
+async function sendForm<S extends z.ZodType>(path: string, schema: S, form: FormData, options: UploadOptions, allowCsrfRetry: boolean): Promise<z.infer<S>> {
+  const token = csrfToken ?? (await refreshCsrfToken(options.signal));
+  const response = await new Promise<Response>((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open('POST', path);
+    xhr.withCredentials = true;
+    xhr.setRequestHeader('Accept', 'application/json');
+    xhr.setRequestHeader('X-CSRF-Token', token);
+    xhr.responseType = 'text';
+    if (options.onProgress) {
+      const report = options.onProgress;
+      xhr.upload.addEventListener('progress', (event) => report(event.loaded, event.lengthComputable ? event.total : 0));
+    }
+    const abort = () => xhr.abort();
+    options.signal?.addEventListener('abort', abort, { once: true });
+    xhr.addEventListener('load', () => {
+      options.signal?.removeEventListener('abort', abort);
+      resolve(new Response(xhr.status === 204 ? null : xhr.responseText, { status: xhr.status, statusText: xhr.statusText }));
+    });
+    xhr.addEventListener('error', () => reject(new ApiError(0, { error: NETWORK_ERROR, message: 'Could not reach the server. Check your connection and try again.' })));
+    xhr.addEventListener('abort', () => reject(new DOMException('The upload was stopped.', 'AbortError')));
+    xhr.send(form);
+  });
+
+  if (!response.ok) {
+    const error = await readError(response);
+    if (allowCsrfRetry && error.is(ERROR_IDS.csrf)) {
+      await refreshCsrfToken(options.signal);
+      return sendForm(path, schema, form, options, false);
+    }
+    throw error;
+  }
+  let json: unknown;
+  try {
+    json = await response.json();
+  } catch {
+    throw new ApiError(response.status, { error: INVALID_RESPONSE, message: 'The server sent an answer Gaugeline could not read.' });
+  }
+  const parsed = schema.safeParse(json);
+  if (!parsed.success) {
+    console.error(`Unexpected response shape from POST ${path}`, parsed.error.issues);
+    throw new ApiError(response.status, { error: INVALID_RESPONSE, message: 'The server sent an answer Gaugeline did not expect.' });
+  }
+  return parsed.data;
+}
+
 /** Typed calls. Pass the response schema; use `null` for 204 responses. */
 export const api = {
   get: <S extends z.ZodType>(path: string, schema: S, options: RequestOptions = {}) => send('GET', path, schema, options, true),
@@ -157,6 +218,8 @@ export const api = {
     send('PATCH', path, schema, { ...options, body }, true),
   delete: <S extends z.ZodType>(path: string, schema: S | null, options: RequestOptions = {}) =>
     send('DELETE', path, schema, options, true),
+  /** multipart/form-data POST with upload progress (see sendForm). */
+  upload: <S extends z.ZodType>(path: string, schema: S, form: FormData, options: UploadOptions = {}) => sendForm(path, schema, form, options, true),
 };
 
 /** Encode one path segment, e.g. apiPath`/api/projects/${id}`. */

@@ -5,6 +5,12 @@ export const paths = {
   account: '/account',
   about: '/about',
   project: (projectId: number | string) => `/projects/${encodeURIComponent(String(projectId))}`,
+  /** A revision's results; `search` is an optional query string without "?". */
+  revision: (projectId: number | string, revisionId: number | string, search?: string) =>
+    `/projects/${encodeURIComponent(String(projectId))}/revisions/${encodeURIComponent(String(revisionId))}${search ? `?${search}` : ''}`,
+  /** One member's sheet, keyed by its IFC GlobalId. */
+  member: (projectId: number | string, revisionId: number | string, globalId: string) =>
+    `/projects/${encodeURIComponent(String(projectId))}/revisions/${encodeURIComponent(String(revisionId))}/members/${encodeURIComponent(globalId)}`,
   adminPeople: '/admin/people',
   adminProjects: '/admin/projects',
 } as const;

@@ -11,6 +11,21 @@ export const queryKeys = {
     detail: (projectId: number) => ['projects', 'detail', projectId] as const,
     members: (projectId: number) => ['projects', 'detail', projectId, 'members'] as const,
   },
+  models: {
+    /** Everything about one project's models and revisions. */
+    ofProject: (projectId: number) => ['models', projectId] as const,
+    list: (projectId: number) => ['models', projectId, 'list'] as const,
+    revisions: (projectId: number, modelId: number) => ['models', projectId, 'revisions', modelId] as const,
+    revision: (projectId: number, revisionId: number) => ['models', projectId, 'revision', revisionId] as const,
+  },
+  /** Results of one revision: table pages, overview, member sheets and their audit trails. */
+  results: {
+    ofRevision: (projectId: number, revisionId: number) => ['results', projectId, revisionId] as const,
+    members: (projectId: number, revisionId: number, query: Record<string, string>) => ['results', projectId, revisionId, 'members', query] as const,
+    overview: (projectId: number, revisionId: number) => ['results', projectId, revisionId, 'overview'] as const,
+    sheet: (projectId: number, revisionId: number, globalId: string) => ['results', projectId, revisionId, 'sheet', globalId] as const,
+    audit: (projectId: number, revisionId: number, globalId: string) => ['results', projectId, revisionId, 'sheet', globalId, 'audit'] as const,
+  },
   users: {
     all: ['users'] as const,
     list: () => ['users', 'list'] as const,

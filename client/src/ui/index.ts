@@ -9,3 +9,7 @@ export { ErrorState, EmptyState } from './states';
 export { Badge, type BadgeTone } from './badge';
 export { ConfirmDialog } from './dialog';
 export { PageHeader } from './page-header';
+export { BandSwatch, BandTag, BandLegend, UtilisationFigure, bandFill } from './band';
+export { Figure } from './figure';
+export { UnitsSwitch } from './units-switch';
+export { CautionsBlock } from './cautions';

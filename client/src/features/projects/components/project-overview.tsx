@@ -1,13 +1,14 @@
+import type { ReactNode } from 'react';
 import { formatDate } from '../../../lib/format';
-import { EmptyState, ErrorState, LoadingState, PageHeader, Panel } from '../../../ui';
+import { ErrorState, LoadingState, PageHeader } from '../../../ui';
 import { useProject } from '../api/use-project';
 import { standardName } from './standard-name';
 
 /**
- * One project: its settings, and the places where models and results will appear.
+ * One project: its settings, then whatever the page puts below them (models, uploads).
  * The page header is always rendered first so focus can land on it while data loads.
  */
-export function ProjectOverview({ projectId }: { projectId: number }) {
+export function ProjectOverview({ projectId, children }: { projectId: number; children?: ReactNode }) {
   const project = useProject(projectId);
   const data = project.data;
 
@@ -41,20 +42,7 @@ export function ProjectOverview({ projectId }: { projectId: number }) {
             </div>
           </dl>
 
-          <div className="grid gap-block lg:grid-cols-2">
-            <Panel title="Models" description="IFC building models uploaded to this project.">
-              <EmptyState title="Nothing has been uploaded yet">
-                No IFC model has been uploaded to this project. Once one is, Gaugeline lists the steel tension members it finds and
-                their bolted ends here.
-              </EmptyState>
-            </Panel>
-            <Panel title="Results" description={`Tension checks to ${standardName(data.standard)}.`}>
-              <EmptyState title="No results yet">
-                There is nothing to check until a model has been uploaded. Results will show each member&rsquo;s utilisation, with every
-                assumed value listed for review.
-              </EmptyState>
-            </Panel>
-          </div>
+          {children}
         </div>
       )}
     </>
