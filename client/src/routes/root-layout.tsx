@@ -1,5 +1,5 @@
 import { useEffect, useRef } from 'react';
-import { Link, Outlet, ScrollRestoration, useLocation } from 'react-router';
+import { Link, Outlet, ScrollRestoration, useLocation, useMatches } from 'react-router';
 import { CAUTION_SUMMARY } from '@shared/api';
 import { paths } from '../lib/paths';
 import { useCurrentUser } from '../features/session';
@@ -13,6 +13,9 @@ export function RootLayout() {
   const { user } = useCurrentUser();
   const location = useLocation();
   const shownPath = useRef(location.pathname);
+  // Result pages (wide tables, drawings) ask for more width through their route handle.
+  const wide = useMatches().some((m) => (m.handle as { wide?: boolean } | undefined)?.wide);
+  const width = wide ? 'max-w-[100rem]' : 'max-w-page';
 
   // After navigating, put focus on the new page's title so screen readers announce it
   // and keyboard users start at the content (not on the first page load).
@@ -34,7 +37,7 @@ export function RootLayout() {
 
       <header className="border-b border-rule bg-card">
         <div className="h-1 bg-copper" aria-hidden="true" />
-        <div className="mx-auto flex max-w-page flex-wrap items-center gap-x-10 gap-y-2 px-gutter py-3">
+        <div className={`mx-auto flex ${width} flex-wrap items-center gap-x-10 gap-y-2 px-gutter py-3`}>
           <Link to={user ? paths.home : paths.signIn} className="flex items-baseline gap-2 text-ink no-underline hover:text-ink hover:no-underline">
             <Wordmark />
             <span className="sr-only">, home</span>
@@ -43,12 +46,12 @@ export function RootLayout() {
         </div>
       </header>
 
-      <main id="main" tabIndex={-1} className="mx-auto w-full max-w-page flex-1 px-gutter py-section">
+      <main id="main" tabIndex={-1} className={`mx-auto w-full ${width} flex-1 px-gutter py-section`}>
         <Outlet />
       </main>
 
       <footer className="sticky bottom-0 z-10 border-t border-rule bg-paper/95 backdrop-blur-sm print:static">
-        <p className="mx-auto max-w-page px-gutter py-2 text-fine text-muted">
+        <p className={`mx-auto ${width} px-gutter py-2 text-fine text-muted`}>
           <strong className="font-semibold text-heed">Caution: </strong>
           {CAUTION_SUMMARY}{' '}
           <Link to={paths.about} className="no-print whitespace-nowrap">
