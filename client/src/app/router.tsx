@@ -5,6 +5,8 @@ import { RequireRole, RequireSignedIn } from '../routes/guards';
 import { SignInPage } from '../routes/sign-in-page';
 import { ProjectsPage } from '../routes/projects-page';
 import { ProjectPage } from '../routes/project-page';
+import { RevisionPage } from '../routes/revision-page';
+import { MemberPage } from '../routes/member-page';
 import { AccountPage } from '../routes/account-page';
 import { AdminPeoplePage } from '../routes/admin-people-page';
 import { AdminProjectsPage } from '../routes/admin-projects-page';
@@ -16,7 +18,9 @@ import { NotFoundPage } from '../routes/not-found-page';
  *   /sign-in              public
  *   /about                public: scope and cautions
  *   /                     projects (create form for admin and engineer)
- *   /projects/:projectId  project overview
+ *   /projects/:projectId  project overview: models, revisions, uploads
+ *   /projects/:projectId/revisions/:revisionId                     a revision's results
+ *   /projects/:projectId/revisions/:revisionId/members/:globalId   one member's sheet
  *   /account              your details, change password
  *   /admin/people         admin only
  *   /admin/projects       admin only (project access)
@@ -34,6 +38,8 @@ export function createRouter() {
           children: [
             { index: true, element: <ProjectsPage /> },
             { path: 'projects/:projectId', element: <ProjectPage /> },
+            { path: 'projects/:projectId/revisions/:revisionId', element: <RevisionPage />, handle: { wide: true } },
+            { path: 'projects/:projectId/revisions/:revisionId/members/:globalId', element: <MemberPage />, handle: { wide: true } },
             { path: 'account', element: <AccountPage /> },
             {
               path: 'admin',
