@@ -7,13 +7,12 @@
 import { createHash } from 'node:crypto';
 import yazl from 'yazl';
 import { CAUTIONS } from '@shared/api/cautions';
-import { BAND_STYLE, type ResultBand } from '@shared/api/results';
+import { BAND_STYLE } from '@shared/api/results';
 import { kN, memberLabel, type ExportBundle, type ExportMember } from './export-bundle';
 import { assumptionsText, fixed, standardLine } from './export-text';
 import { markupXml, versionXml, viewpointXml, type V3 } from './bcf-xml';
 
-/** Bands a BCF export lists when the caller gives no filter of its own. */
-export const CRITICAL_BANDS: ResultBand[] = ['tight', 'over'];
+export { CRITICAL_BANDS } from './export-bundle';
 
 const FIELD_OF_VIEW = 60;
 

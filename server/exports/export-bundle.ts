@@ -50,6 +50,9 @@ export interface ExportBundle {
   members: ExportMember[];
 }
 
+/** Bands a BCF export lists when the caller gives no filter of its own. */
+export const CRITICAL_BANDS: ResultBand[] = ['tight', 'over'];
+
 /** Units used in every export; one place so headers, sheets and reports agree. */
 export const EXPORT_UNITS = {
   force: 'kN',

@@ -9,8 +9,7 @@ import { parseForcesCsv, type ForceRow } from '../../../shared/forces/parse-forc
 import { identifyGrade } from '../../../shared/engine/materials/parse-grade.ts';
 import { readUploadBytes } from '../../imports/read-upload-bytes.ts';
 import { bundleFromRecords, selectRecords } from '../../exports/bundle-from-records.ts';
-import { CRITICAL_BANDS } from '../../exports/bcf-export.ts';
-import { writeExport } from '../../exports/export-formats.ts';
+import { CRITICAL_BANDS } from '../../exports/export-bundle.ts';
 import { CliInputError } from '../cli-error.ts';
 import { parseCheckOptions, type CheckOptions } from '../check-options.ts';
 import { checkJson } from '../check-json.ts';
@@ -85,6 +84,8 @@ export async function run(args: string[]): Promise<void> {
     generatedAt: checkedAt,
     filterDescription: `${opts.all ? 'all steel members' : 'tension members'} with a check result${bands ? ` in band(s) ${bands.join(', ')}` : ''}`,
   });
+  // Loaded only here: the writers pull in pdfkit and exceljs, which JSON runs never need.
+  const { writeExport } = await import('../../exports/export-formats.ts');
   const body = await writeExport(opts.format, bundle, { modelBytes: () => readUploadBytes(opts.model, kindOf(opts.model), INFLATE_LIMIT_BYTES) });
   await emit(opts, body);
 }
