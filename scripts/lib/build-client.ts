@@ -23,8 +23,21 @@ export function buildClientIfStale(root: string): void {
   const sourcesAt = Math.max(...SOURCES.map((s) => newestMtime(path.join(root, s))));
   if (builtAt >= sourcesAt) return;
   console.log('Building the client (vite build)...');
-  execFileSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], {
-    cwd: root,
-    stdio: 'inherit',
-  });
+  // Another build of the same checkout (a second terminal) holds Vite's lock: wait for it.
+  for (let attempt = 1; ; attempt++) {
+    try {
+      execFileSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], {
+        cwd: root,
+        stdio: ['ignore', 'inherit', 'pipe'],
+      });
+      return;
+    } catch (err) {
+      const stderr = String((err as { stderr?: Buffer }).stderr ?? '');
+      if (!/another Vite build process/i.test(stderr) || attempt >= 24) {
+        process.stderr.write(stderr);
+        throw err;
+      }
+      Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 5000);
+    }
+  }
 }

@@ -4,6 +4,7 @@
  * Run: node --import tsx scripts/samples/make-samples.ts
  * Also exports makeSyntheticModel(n) for benchmarks, built with the same writers.
  */
+import { createHash } from 'node:crypto';
 import { writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -16,15 +17,14 @@ type H = Handle<any>;
 
 const GUID_CHARS = '0123456789ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz_$';
 
-/** Stable GlobalId per member key, the same in both schemas and in the CSV. */
+/**
+ * Stable GlobalId per member key, the same in both schemas and in the CSV. Taken from a
+ * SHA-256 of the key: a 32-bit hash collided within a few hundred synthetic members.
+ */
 export function memberGuid(key: string): string {
-  let h = 2166136261;
-  for (const c of `kestrel-yard:${key}`) h = Math.imul(h ^ c.charCodeAt(0), 16777619) >>> 0;
-  let s = '';
-  for (let i = 0; i < 22; i++) {
-    h = (Math.imul(h, 1664525) + 1013904223) >>> 0;
-    s += GUID_CHARS[(h >>> 8) % (i === 0 ? 4 : 64)];
-  }
+  const digest = createHash('sha256').update(`kestrel-yard:${key}`).digest();
+  let s = GUID_CHARS[digest[0] % 4];
+  for (let i = 1; i < 22; i++) s += GUID_CHARS[digest[i] % 64];
   return s;
 }
 

@@ -185,7 +185,18 @@ function steelFromAssumptions(result: CheckResult, spec: MemberCheckInputRaw['st
 /** Checks every steel candidate of a model. Members flagged as not steel (nuts, washers, anchors) are left out. */
 export function checkModel(model: ExtractedModel, settings: CheckSettings, onProgress?: (fraction: number) => void): MemberRecord[] {
   const boltGrades = new Map(model.boltGroups.filter((b) => b.grade).map((b) => [b.globalId, b.grade!]));
-  const candidates = model.members.filter((m) => !m.notSteelReason);
+  const seen = new Set<string>();
+  const duplicates: string[] = [];
+  // GlobalIds must be unique, but real exports sometimes repeat one; keep the first and say so.
+  const candidates = model.members.filter((m) => {
+    if (m.notSteelReason) return false;
+    if (seen.has(m.globalId)) return duplicates.push(`${m.globalId} ${m.name ?? ''}`.trim()) && false;
+    seen.add(m.globalId);
+    return true;
+  });
+  if (duplicates.length) {
+    model.warnings.push({ code: 'member.duplicate-globalid', message: 'Several elements share one GlobalId; only the first of each was kept.', count: duplicates.length, examples: duplicates.slice(0, 3) });
+  }
   const records: MemberRecord[] = [];
   candidates.forEach((m, i) => {
     records.push(checkExtractedMember(m, settings, boltGrades));

@@ -38,7 +38,9 @@ export class ImportRunner {
   ) {
     this.pool = new Piscina({
       filename: new URL('./import-worker.mjs', import.meta.url).href,
-      minThreads: 0,
+      // One thread stays loaded (tsx, web-ifc, the engine): after a job is stopped at its
+      // limit its replacement starts at once, so the next job does not pay a cold start.
+      minThreads: config.imports.workers > 0 ? 1 : 0,
       maxThreads: Math.max(1, config.imports.workers),
       idleTimeout: 60_000,
       concurrentTasksPerWorker: 1,

@@ -17,6 +17,9 @@ export interface TestApp {
 }
 
 /**
+ * Run one in-process app at a time: Sequelize model classes bind to the last connection
+ * made in a process. For several app processes use spawn-app.ts.
+ *
  * The real app (real MariaDB, migrations, demo seed, built client) on a free port,
  * in a database of its own. `env` overrides configuration for one suite.
  */
