@@ -34,8 +34,16 @@ function font(name: string, file: string): FontFile {
   return f;
 }
 
+const chains = new Map<Weight, FontFile[]>();
+
 /** Fallback chains, most common first. Math has no bold face; its regular stands in. */
 function chain(weight: Weight): FontFile[] {
+  let c = chains.get(weight);
+  if (!c) chains.set(weight, (c = buildChain(weight)));
+  return c;
+}
+
+function buildChain(weight: Weight): FontFile[] {
   const w = weight === 'bold' ? 700 : 400;
   return [
     font(`latin-${w}`, path.join(notoDir, `noto-sans-latin-${w}-normal.woff`)),
@@ -56,6 +64,18 @@ export interface Run {
   text: string;
 }
 
+/** First font of the chain with the glyph, per weight and code point (asked once each). */
+const choice = new Map<number, FontFile | null>();
+function fontFor(weight: Weight, cp: number): FontFile | null {
+  const key = weight === 'bold' ? -cp - 1 : cp;
+  let f = choice.get(key);
+  if (f === undefined) {
+    f = chain(weight).find((x) => x.has(cp)) ?? null;
+    choice.set(key, f);
+  }
+  return f;
+}
+
 /** Splits text into runs of one font each; a character no font has becomes "?". */
 export function runsOf(text: string, weight: Weight = 'regular'): Run[] {
   const fonts = chain(weight);
@@ -64,7 +84,7 @@ export function runsOf(text: string, weight: Weight = 'regular'): Run[] {
     const cp = ch.codePointAt(0)!;
     // Spaces and combining marks stay with the run before them.
     const keep = runs.length && (cp === 0x20 || (cp >= 0x300 && cp <= 0x36f));
-    const f = keep ? null : (fonts.find((x) => x.has(cp)) ?? null);
+    const f = keep ? null : fontFor(weight, cp);
     const name = f?.name ?? (keep ? runs[runs.length - 1].font : fonts[0].name);
     const glyph = f || keep ? ch : '?';
     const last = runs[runs.length - 1];

@@ -111,12 +111,13 @@ function summary(doc: PDFKit.PDFDocument, b: ExportBundle): void {
 /** Footer on every page: who made it, the short caution, page n of N. */
 function footers(doc: PDFKit.PDFDocument, b: ExportBundle): void {
   const range = doc.bufferedPageRange();
+  const standard = standardLine(b); // once: it scans every member's assumptions
   for (let i = range.start; i < range.start + range.count; i++) {
     doc.switchToPage(i);
     const bottom = doc.page.margins.bottom;
     doc.page.margins.bottom = 0; // writing inside the margin must not start a new page
     doc.fontSize(6.5).fillColor(MUTED);
-    write(doc, `${b.project.name} · revision ${b.revision.number} · ${standardLine(b)} · engine ${b.engineVersion} · page ${i + 1} of ${range.count}`, { x: PAGE.margin, y: PAGE.height - 34, width: CONTENT_WIDTH, lineBreak: false });
+    write(doc, `${b.project.name} · revision ${b.revision.number} · ${standard} · engine ${b.engineVersion} · page ${i + 1} of ${range.count}`, { x: PAGE.margin, y: PAGE.height - 34, width: CONTENT_WIDTH, lineBreak: false });
     write(doc, CAUTION_SUMMARY, { x: PAGE.margin, y: PAGE.height - 25, width: CONTENT_WIDTH, lineBreak: false });
     doc.page.margins.bottom = bottom;
   }

@@ -8,7 +8,8 @@ import { currentUser, requireRole, requireSignedIn } from '../../http/require-us
 import { errors } from '../../http/errors';
 import { findVisibleProject } from '../projects/project-policy';
 import { findRevision } from '../models/model-service';
-import { EXPORT_FORMATS, FORMAT_INFO, writeExport } from '../../exports/export-formats';
+import { EXPORT_FORMATS, FORMAT_INFO } from '../../exports/export-formats';
+import { writeExportInWorker } from '../../exports/export-pool';
 import { effectiveQuery, exportFileName } from './export-query';
 import { loadExportBundle, revisionIfcBytes } from './export-service';
 
@@ -30,7 +31,8 @@ export function exportRoutes(_sequelize: Sequelize, store: FileStore): Router {
     const revision = await findRevision(project.id, parseId(req.params.revisionId, 'That revision'));
     const query = effectiveQuery(format, parseBody(memberQuerySchema, req.query));
     const bundle = await loadExportBundle(project, revision, query);
-    const body = await writeExport(format, bundle, { modelBytes: () => revisionIfcBytes(store, revision) });
+    const modelBytes = format === 'ifc' ? await revisionIfcBytes(store, revision) : undefined;
+    const body = await writeExportInWorker(format, bundle, modelBytes);
     const info = FORMAT_INFO[format];
     const fileName = exportFileName(bundle.modelName, revision.number, query, info.extension);
     res.setHeader('Content-Type', info.contentType);
