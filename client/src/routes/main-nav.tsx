@@ -3,6 +3,7 @@ import type { SessionUser } from '@shared/api';
 import { cx } from '../lib/cx';
 import { paths } from '../lib/paths';
 import { ROLE_LABELS } from '../lib/roles';
+import { UnitsSwitch } from '../ui';
 import { SignOutButton } from '../features/session';
 
 const linkClass = ({ isActive }: { isActive: boolean }) =>
@@ -51,6 +52,7 @@ export function MainNav({ user }: { user: SessionUser }) {
         </div>
       )}
       <div className="ml-auto flex items-center gap-3">
+        <UnitsSwitch className="no-print" />
         <p className="hidden text-small text-muted lg:block">
           <span className="sr-only">Signed in as </span>
           <span className="font-semibold text-ink">{user.name}</span>
