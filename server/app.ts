@@ -16,6 +16,8 @@ import type { Logger } from './logger';
 import type { FileStore } from './storage/file-store';
 import { modelRoutes } from './features/models/model-routes';
 import { memberRoutes } from './features/members/member-routes';
+import { outboxRoutes } from './features/mail/outbox-routes';
+import type { MailService } from './mail/mail-service';
 import { geometryRoutes } from './features/geometry/geometry-routes';
 import { exportRoutes } from './features/exports/export-routes';
 
@@ -28,6 +30,7 @@ export interface AppHandle {
 /** Builds the Express app: security headers, sessions, the API, then the built client. */
 export interface AppServices {
   store: FileStore;
+  mail: MailService;
   /** Called when a new import job is queued, so it starts without waiting for the poll. */
   onImportQueued: () => void;
 }
@@ -69,8 +72,9 @@ export function createApp(config: AppConfig, sequelize: Sequelize, logger: Logge
   api.use(sessions.middleware);
   api.use(pp.session());
   api.use(requireCsrf);
-  api.use('/session', sessionRoutes(pp, config));
-  api.use('/users', userRoutes(sequelize));
+  api.use('/session', sessionRoutes(pp, config, sequelize, services.mail));
+  api.use('/users', userRoutes(sequelize, config, services.mail));
+  api.use('/mail', outboxRoutes(services.mail));
   api.use('/projects/:projectId/revisions/:revisionId/exports', exportRoutes(sequelize, services.store));
   api.use('/projects/:projectId/revisions/:revisionId/geometry', geometryRoutes(services.store));
   api.use('/projects/:projectId/revisions/:revisionId', memberRoutes(sequelize));

@@ -7,11 +7,18 @@ import { createApp } from './app';
 import { createLogger } from './logger';
 import { createFileStore } from './storage/file-store-factory';
 import { ImportRunner } from './imports/import-runner';
+import { MailService } from './mail/mail-service';
+import { startSmtpSink, type SmtpSink } from './mail/local-smtp-sink';
+import { notifyImportOutcome } from './mail/import-notifications';
+import path from 'node:path';
 
 export interface RunningServer {
   url: string;
   config: AppConfig;
   imports: ImportRunner;
+  mail: MailService;
+  /** The local mail service on loopback, when no real SMTP server is configured. */
+  mailSink: SmtpSink | null;
   stop(): Promise<void>;
 }
 
@@ -30,8 +37,11 @@ export async function startServer(env: Record<string, string | undefined> = proc
   if (config.demoSeed && (await seedDemoIfEmpty(sequelize))) logger.info('seeded the demo project and accounts');
 
   const store = createFileStore(config);
-  const imports = new ImportRunner(sequelize, config, store, logger);
-  const handle = createApp(config, sequelize, logger, { store, onImportQueued: () => imports.kick() });
+  // No SMTP server configured: keep every message in a local mail service on loopback.
+  const mailSink = config.mail.smtp ? null : await startSmtpSink(path.resolve(config.dataDir, 'mail-sink'));
+  const mail = new MailService(config, config.mail.smtp ?? { host: mailSink!.host, port: mailSink!.port, secure: false }, logger);
+  const imports = new ImportRunner(sequelize, config, store, logger, (id) => void notifyImportOutcome(mail, config, logger, id));
+  const handle = createApp(config, sequelize, logger, { store, mail, onImportQueued: () => imports.kick() });
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(config.port, config.host, () => resolve(s));
     s.once('error', reject);
@@ -40,12 +50,18 @@ export async function startServer(env: Record<string, string | undefined> = proc
   const port = typeof address === 'object' && address ? address.port : config.port;
   const url = `http://${config.host}:${port}`;
   imports.start();
+  mail.start();
+  mail.kick();
   return {
     url,
     config,
     imports,
+    mail,
+    mailSink,
     async stop() {
       await imports.stop();
+      await mail.stop();
+      await mailSink?.close();
       handle.close();
       const closed = new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();

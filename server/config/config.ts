@@ -39,6 +39,14 @@ const envSchema = z.object({
   IMPORT_POLL_MS: z.coerce.number().int().min(20).max(60_000).default(500),
   IMPORT_STALE_SECONDS: z.coerce.number().int().min(5).max(3600).default(60),
   ARCHIVE_INFLATE_LIMIT_MB: z.coerce.number().positive().max(100_000).default(2048),
+  PUBLIC_URL: z.string().url().optional(),
+  MAIL_FROM: z.string().min(3).default('Gaugeline <no-reply@gaugeline.invalid>'),
+  SMTP_HOST: z.string().optional(),
+  SMTP_PORT: port.optional(),
+  SMTP_SECURE: z.enum(['on', 'off']).default('off'),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_RETRY_SECONDS: z.coerce.number().int().min(1).max(86_400).default(30),
 });
 
 export interface AppConfig {
@@ -56,6 +64,14 @@ export interface AppConfig {
   storage:
     | { kind: 'local' }
     | { kind: 's3'; endpoint?: string; region: string; bucket: string; accessKeyId?: string; secretAccessKey?: string; forcePathStyle: boolean };
+  /** Links in e-mails point here. */
+  publicUrl: string;
+  mail: {
+    from: string;
+    /** A real SMTP server, or null: then a local mail service on loopback keeps every message. */
+    smtp: { host: string; port: number; secure: boolean; user?: string; password?: string } | null;
+    retryMs: number;
+  };
   imports: {
     /** Worker threads for import jobs; 0 disables the runner in this process (API-only node). */
     workers: number;
@@ -96,6 +112,8 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     if (!e.S3_BUCKET) problems.push('S3_BUCKET: required when STORAGE=s3');
     if (Boolean(e.S3_ACCESS_KEY_ID) !== Boolean(e.S3_SECRET_ACCESS_KEY)) problems.push('S3_ACCESS_KEY_ID / S3_SECRET_ACCESS_KEY: give both or neither');
   }
+  if (e.NODE_ENV === 'production' && !e.SMTP_HOST) problems.push('SMTP_HOST: set the mail server to use in production');
+  if (Boolean(e.SMTP_USER) !== Boolean(e.SMTP_PASSWORD)) problems.push('SMTP_USER / SMTP_PASSWORD: give both or neither');
   if (problems.length) throw new ConfigError(problems);
   return {
     env: e.NODE_ENV,
@@ -122,6 +140,14 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
             forcePathStyle: e.S3_FORCE_PATH_STYLE === 'on',
           }
         : { kind: 'local' },
+    publicUrl: (e.PUBLIC_URL ?? `http://${e.HOST}:${e.PORT}`).replace(/\/$/, ''),
+    mail: {
+      from: e.MAIL_FROM,
+      smtp: e.SMTP_HOST
+        ? { host: e.SMTP_HOST, port: e.SMTP_PORT ?? (e.SMTP_SECURE === 'on' ? 465 : 587), secure: e.SMTP_SECURE === 'on', user: e.SMTP_USER, password: e.SMTP_PASSWORD }
+        : null,
+      retryMs: e.MAIL_RETRY_SECONDS * 1000,
+    },
     imports: {
       workers: e.IMPORT_WORKERS,
       timeLimitMs: e.IMPORT_TIME_LIMIT_SECONDS * 1000,

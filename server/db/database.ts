@@ -10,6 +10,8 @@ import { initRevisionModel } from './models/revision';
 import { initMemberModel } from './models/member';
 import { initMemberForceModel } from './models/member-force';
 import { initCheckResultModel } from './models/check-result';
+import { initMailMessageModel } from './models/mail-message';
+import { initOneTimeTokenModel } from './models/one-time-token';
 
 /** Opens the connection pool and registers every model. Does not touch the schema (see migrate.ts). */
 export function createDatabase(config: AppConfig['db']): Sequelize {
@@ -33,6 +35,8 @@ export function createDatabase(config: AppConfig['db']): Sequelize {
   initMemberModel(sequelize);
   initMemberForceModel(sequelize);
   initCheckResultModel(sequelize);
+  initMailMessageModel(sequelize);
+  initOneTimeTokenModel(sequelize);
 
   ProjectModel.belongsToMany(UserModel, { through: ProjectMemberModel, foreignKey: 'projectId', otherKey: 'userId', as: 'members' });
   UserModel.belongsToMany(ProjectModel, { through: ProjectMemberModel, foreignKey: 'userId', otherKey: 'projectId', as: 'projects' });

@@ -2,12 +2,14 @@ import { Umzug, SequelizeStorage } from 'umzug';
 import type { Sequelize } from 'sequelize';
 import * as m0001 from './migrations/0001-foundation';
 import * as m0002 from './migrations/0002-models-and-results';
+import * as m0004 from './migrations/0004-mail-and-tokens';
 
 // Migrations are listed explicitly (not globbed) so that the same list works under
 // tsx, vitest and a bundled build, and the order is reviewed in code.
 const MIGRATIONS = [
   { name: '0001-foundation', module: m0001 },
   { name: '0002-models-and-results', module: m0002 },
+  { name: '0004-mail-and-tokens', module: m0004 },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

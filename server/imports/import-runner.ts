@@ -35,6 +35,8 @@ export class ImportRunner {
     private readonly config: AppConfig,
     private readonly store: FileStore,
     private readonly logger: Logger,
+    /** Called after a job ends (done or failed) in this process. */
+    private readonly onFinished: (revisionId: number) => void = () => {},
   ) {
     this.pool = new Piscina({
       filename: new URL('./import-worker.mjs', import.meta.url).href,
@@ -69,6 +71,7 @@ export class ImportRunner {
       if (!job) return;
       const run = this.runJob(job).finally(() => {
         this.active.delete(run);
+        if (!this.stopping) this.onFinished(job.id);
         this.kick();
       });
       this.active.add(run);

@@ -9,3 +9,4 @@ export * from './models';
 export * from './results';
 export * from './members';
 export * from './overrides';
+export * from './mail';

@@ -35,3 +35,14 @@ export const changePasswordRequestSchema = z.object({
   newPassword: newPasswordSchema,
 });
 export type ChangePasswordRequest = z.infer<typeof changePasswordRequestSchema>;
+
+/** POST /api/session/password-reset — always 202, whether or not the e-mail has an account. */
+export const passwordResetRequestSchema = z.object({
+  email: z.string().trim().toLowerCase().email('Enter a valid e-mail address').max(254),
+});
+
+/** POST /api/session/password-token — choose a password from a one-time link. */
+export const setPasswordWithTokenSchema = z.object({
+  token: z.string().min(20, 'The link is incomplete').max(200),
+  newPassword: newPasswordSchema,
+});

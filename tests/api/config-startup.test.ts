@@ -23,8 +23,8 @@ describe('configuration', () => {
 
   it('refuses the development secret and demo seeding in production', () => {
     expect(() => loadConfig({ NODE_ENV: 'production' })).toThrow(/SESSION_SECRET/);
-    expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'x'.repeat(32), DEMO_SEED: 'on' })).toThrow(/DEMO_SEED/);
-    const ok = loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'x'.repeat(32) });
+    expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'x'.repeat(32), SMTP_HOST: 'mail.example.test', DEMO_SEED: 'on' })).toThrow(/DEMO_SEED/);
+    const ok = loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'x'.repeat(32), SMTP_HOST: 'mail.example.test' });
     expect(ok.demoSeed).toBe(false);
     expect(ok.session.secret).not.toBe(DEV_SESSION_SECRET);
   });
@@ -49,7 +49,7 @@ describe('configuration', () => {
       const cfg = app.server.config;
       await expect(
         startServer(
-          { NODE_ENV: 'production', PORT: '0', DB_HOST: cfg.db.host, DB_PORT: String(cfg.db.port), DB_NAME: cfg.db.name, DB_USER: cfg.db.user, DB_PASSWORD: cfg.db.password, SESSION_SECRET: 'p'.repeat(40) },
+          { NODE_ENV: 'production', PORT: '0', DB_HOST: cfg.db.host, DB_PORT: String(cfg.db.port), DB_NAME: cfg.db.name, DB_USER: cfg.db.user, DB_PASSWORD: cfg.db.password, SESSION_SECRET: 'p'.repeat(40), SMTP_HOST: 'mail.example.test' },
           true,
         ),
       ).rejects.toThrow(/demo accounts exist/);

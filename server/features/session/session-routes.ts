@@ -1,7 +1,10 @@
 import { Router, type Request, type Response } from 'express';
 import type passport from 'passport';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
-import { signInRequestSchema, changePasswordRequestSchema, type SessionResponse } from '@shared/api/session';
+import { signInRequestSchema, changePasswordRequestSchema, passwordResetRequestSchema, setPasswordWithTokenSchema, type SessionResponse } from '@shared/api/session';
+import type { Sequelize } from 'sequelize';
+import type { MailService } from '../../mail/mail-service';
+import { requestPasswordReset, setPasswordWithToken } from './account-links-service';
 import type { AppConfig } from '../../config/config';
 import { parseBody } from '../../http/validate';
 import { csrfToken } from '../../http/csrf';
@@ -25,7 +28,7 @@ function logIn(req: Request, user: Express.User): Promise<void> {
   return new Promise((resolve, reject) => req.logIn(user, (err) => (err ? reject(err) : resolve())));
 }
 
-export function sessionRoutes(pp: passport.PassportStatic, config: AppConfig): Router {
+export function sessionRoutes(pp: passport.PassportStatic, config: AppConfig, sequelize: Sequelize, mail: MailService): Router {
   const router = Router();
 
   // Failed attempts per address and e-mail; a successful sign-in does not count.
@@ -37,6 +40,28 @@ export function sessionRoutes(pp: passport.PassportStatic, config: AppConfig): R
     legacyHeaders: false,
     keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
     handler: (_req, _res, next, options) => next(errors.rateLimited(options.windowMs / 1000)),
+  });
+
+  // Reset requests per address and e-mail, so the form cannot be used to flood a mailbox.
+  const resetLimiter = rateLimit({
+    windowMs: config.signInLimit.windowMs,
+    limit: config.signInLimit.max,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => `reset|${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
+    handler: (_req, _res, next, options) => next(errors.rateLimited(options.windowMs / 1000)),
+  });
+
+  router.post('/password-reset', resetLimiter, async (req, res) => {
+    const body = parseBody(passwordResetRequestSchema, req.body);
+    await requestPasswordReset(sequelize, config, mail, body.email);
+    res.status(202).json({ message: 'If an account uses that address, a link to choose a new password is on its way.' });
+  });
+
+  router.post('/password-token', async (req, res) => {
+    const body = parseBody(setPasswordWithTokenSchema, req.body);
+    await setPasswordWithToken(sequelize, body.token, body.newPassword);
+    res.status(204).end();
   });
 
   router.get('/', (req, res) => {
