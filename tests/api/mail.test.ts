@@ -36,6 +36,29 @@ describe('mail on loopback', () => {
     expect(mail.from?.text).toMatch(/Gaugeline/);
   });
 
+  it('sends the critical members with the CSV and PDF attached, refusing bad addresses by name', async () => {
+    const engineer = await signIn(app.url, DEMO.engineer);
+    const pid = (await engineer.call('get', '/api/projects')).body.projects[0].id;
+    const models = (await engineer.call('get', `/api/projects/${pid}/models`)).body.models;
+    const rid = models[0].latestRevision.id;
+    const base = `/api/projects/${pid}/revisions/${rid}/send-critical`;
+    const bad = await engineer.call('post', base, { recipients: ['site.team@example.test', 'not an address'], message: 'x', minUtilisation: 0 });
+    expect(bad.status).toBe(400);
+    expect(bad.body.message).toContain('not an address');
+    const viewer = await signIn(app.url, DEMO.viewer);
+    expect((await viewer.call('post', base, { recipients: ['a@example.test'], minUtilisation: 0 })).status).toBe(403);
+    const ok = await engineer.call('post', base, { recipients: ['site.team@example.test', DEMO.viewer], message: 'Please look at these before Friday.', minUtilisation: 0 });
+    expect(ok.status, JSON.stringify(ok.body)).toBe(202);
+    expect(ok.body.members).toBeGreaterThan(0);
+    const mail = await waitForMail(sinkDir, 'site.team@example.test', /^Critical members/);
+    expect(mail.text).toMatch(/before Friday/);
+    expect(mail.text).toMatch(/licensed/);
+    expect(mail.attachments.map((a) => a.contentType).sort()).toEqual(['application/pdf', 'text/csv']);
+    const csv = mail.attachments.find((a) => a.contentType === 'text/csv')!.content.toString('utf8');
+    const rows = (await engineer.call('get', `/api/projects/${pid}/revisions/${rid}/members?pageSize=500&minUtilisation=0`)).body.members;
+    for (const m of rows) expect(csv).toContain(m.globalId);
+  });
+
   it('invites a new person by a one-time link that works once', async () => {
     const created = await admin.call('post', '/api/users', { email: 'new.person@example.test', name: 'New Person', role: 'viewer' });
     expect(created.status).toBe(201);

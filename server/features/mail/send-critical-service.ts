@@ -1,0 +1,60 @@
+import { mkdir, writeFile } from 'node:fs/promises';
+import { randomBytes } from 'node:crypto';
+import path from 'node:path';
+import type { z } from 'zod';
+import { memberQuerySchema } from '@shared/api/members';
+import type { sendCriticalRequestSchema } from '@shared/api/mail';
+import type { SessionUser } from '@shared/api/session';
+import type { AppConfig } from '../../config/config';
+import type { ProjectModel } from '../../db/models/project';
+import type { RevisionModel } from '../../db/models/revision';
+import type { StoredAttachment } from '../../db/models/mail-message';
+import { errors } from '../../http/errors';
+import { validateRecipients, type MailService } from '../../mail/mail-service';
+import { criticalMembersMail } from '../../mail/templates';
+import { loadExportBundle } from '../exports/export-service';
+import { exportFileName } from '../exports/export-query';
+import { FORMAT_INFO } from '../../exports/export-formats';
+import { writeExportInWorker } from '../../exports/export-pool';
+
+/**
+ * Sends the critical members of a revision (CSV and/or PDF attached) to project members
+ * and typed addresses. The files are written once and kept with the queued message, so a
+ * mail service that is down delays the message but loses nothing.
+ */
+export async function sendCriticalMembers(
+  config: AppConfig,
+  mail: MailService,
+  user: SessionUser,
+  project: ProjectModel,
+  revision: RevisionModel,
+  req: z.output<typeof sendCriticalRequestSchema>,
+): Promise<{ mailId: number; members: number }> {
+  const to = validateRecipients(req.recipients);
+  const query = memberQuerySchema.parse({ scope: 'tension', minUtilisation: req.minUtilisation, sort: 'utilisation', dir: 'desc' });
+  const bundle = await loadExportBundle(project, revision, query);
+  if (!bundle.members.length) throw errors.validation(`No member of revision ${revision.number} has a utilisation of ${req.minUtilisation} or more; nothing to send.`);
+  const dir = path.resolve(config.dataDir, 'mail-attachments');
+  await mkdir(dir, { recursive: true });
+  const attachments: StoredAttachment[] = [];
+  for (const format of req.attach) {
+    const bytes = await writeExportInWorker(format, bundle);
+    const filename = exportFileName(bundle.modelName, revision.number, query, FORMAT_INFO[format].extension);
+    const file = path.join(dir, `${randomBytes(8).toString('hex')}-${filename}`);
+    await writeFile(file, bytes);
+    attachments.push({ filename, contentType: FORMAT_INFO[format].contentType, path: file });
+  }
+  const { subject, text } = criticalMembersMail({
+    sender: user.name,
+    projectName: project.name,
+    modelName: bundle.modelName,
+    revisionNumber: revision.number,
+    standard: revision.standard,
+    message: req.message,
+    count: bundle.members.length,
+    filter: bundle.filterDescription,
+    link: `${config.publicUrl}/projects/${project.id}/revisions/${revision.id}`,
+  });
+  const row = await mail.enqueue({ kind: 'critical-members', to, subject, text, attachments, projectId: project.id, createdById: user.id });
+  return { mailId: row.id, members: bundle.members.length };
+}
