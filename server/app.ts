@@ -18,6 +18,7 @@ import { modelRoutes } from './features/models/model-routes';
 import { memberRoutes } from './features/members/member-routes';
 import { outboxRoutes } from './features/mail/outbox-routes';
 import { sendCriticalRoutes } from './features/mail/send-critical-routes';
+import { compareRoutes } from './features/compare/compare-routes';
 import type { MailService } from './mail/mail-service';
 import { geometryRoutes } from './features/geometry/geometry-routes';
 import { exportRoutes } from './features/exports/export-routes';
@@ -76,6 +77,7 @@ export function createApp(config: AppConfig, sequelize: Sequelize, logger: Logge
   api.use('/session', sessionRoutes(pp, config, sequelize, services.mail));
   api.use('/users', userRoutes(sequelize, config, services.mail));
   api.use('/mail', outboxRoutes(services.mail));
+  api.use('/projects/:projectId/revisions/:revisionId/comparison', compareRoutes());
   api.use('/projects/:projectId/revisions/:revisionId/send-critical', sendCriticalRoutes(config, services.mail));
   api.use('/projects/:projectId/revisions/:revisionId/exports', exportRoutes(sequelize, services.store));
   api.use('/projects/:projectId/revisions/:revisionId/geometry', geometryRoutes(services.store));

@@ -11,6 +11,7 @@ import { MailService } from './mail/mail-service';
 import { startSmtpSink, type SmtpSink } from './mail/local-smtp-sink';
 import { notifyImportOutcome } from './mail/import-notifications';
 import path from 'node:path';
+import { closeExportPool } from './exports/export-pool';
 
 export interface RunningServer {
   url: string;
@@ -62,6 +63,7 @@ export async function startServer(env: Record<string, string | undefined> = proc
       await imports.stop();
       await mail.stop();
       await mailSink?.close();
+      await closeExportPool();
       handle.close();
       const closed = new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
