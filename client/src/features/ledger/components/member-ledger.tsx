@@ -1,4 +1,4 @@
-import type { ResultBand } from '@shared/api';
+import { BAND_STYLE, type ResultBand } from '@shared/api';
 import { formatCount } from '../../../lib/format';
 import { Button, EmptyState, ErrorState, LoadingState, Select } from '../../../ui';
 import { useMemberPage } from '../api/use-member-page';
@@ -54,7 +54,7 @@ export function MemberLedger({ projectId, revisionId, selection, onSelectionChan
               <>
                 Members <span className="figures font-semibold">{formatCount(from)}</span>–<span className="figures font-semibold">{formatCount(to)}</span> of{' '}
                 <span className="figures font-semibold">{formatCount(data.total)}</span>
-                {view.bands.length > 0 && <span className="text-muted"> in {view.bands.map((b: ResultBand) => b).join(', ')}</span>}
+                {view.bands.length > 0 && <span className="text-muted"> in {view.bands.map((b: ResultBand) => BAND_STYLE[b].label).join(', ')}</span>}
               </>
             )
           ) : (

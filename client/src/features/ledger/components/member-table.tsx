@@ -126,7 +126,7 @@ export function MemberTable({ rows, sort, dir, onSort, selection, onSelectionCha
                 key={c.key}
                 scope="col"
                 aria-sort={c.sort && sort === c.sort ? (dir === 'asc' ? 'ascending' : 'descending') : undefined}
-                className={cx('ledger-label px-3 py-2 align-bottom whitespace-nowrap', c.numeric && 'text-right')}
+                className={cx('ledger-label px-2 py-2 align-bottom whitespace-nowrap', c.numeric && 'text-right')}
               >
                 {header(c)}
               </th>
@@ -148,28 +148,28 @@ export function MemberTable({ rows, sort, dir, onSort, selection, onSelectionCha
                     className="size-4 accent-copper"
                   />
                 </td>
-                <th scope="row" className="px-3 py-2 font-mono text-fine font-normal whitespace-nowrap">
+                <th scope="row" className="px-2 py-2 font-mono text-fine font-normal whitespace-nowrap">
                   <Link to={memberHref(m.globalId)}>{m.globalId}</Link>
                 </th>
-                <td className="px-3 py-2 font-semibold whitespace-nowrap">{m.tag ?? <span className="text-muted">—</span>}</td>
-                <td className="min-w-40 px-3 py-2">{m.name ?? <span className="text-muted">—</span>}</td>
-                <td className="px-3 py-2 text-muted">{m.ifcClass.replace(/^Ifc/, '')}</td>
-                <td className="px-3 py-2 whitespace-nowrap">{m.profile ?? <span className="text-muted">—</span>}</td>
-                <td className="px-3 py-2 whitespace-nowrap">{m.grade ?? <span className="text-muted">—</span>}</td>
-                <td className="px-3 py-2 text-right">
+                <td className="px-2 py-2 font-semibold whitespace-nowrap">{m.tag ?? <span className="text-muted">—</span>}</td>
+                <td className="min-w-40 px-2 py-2">{m.name ?? <span className="text-muted">—</span>}</td>
+                <td className="px-2 py-2 text-muted">{m.ifcClass.replace(/^Ifc/, '')}</td>
+                <td className="px-2 py-2 whitespace-nowrap">{m.profile ?? <span className="text-muted">—</span>}</td>
+                <td className="px-2 py-2 whitespace-nowrap">{m.grade ?? <span className="text-muted">—</span>}</td>
+                <td className="px-2 py-2 text-right">
                   <Figure measure={m.designForceN == null ? null : units.force(m.designForceN)} missing="none" />
                 </td>
-                <td className="px-3 py-2 text-right">
+                <td className="px-2 py-2 text-right">
                   <Figure measure={m.designCapacityN == null ? null : units.force(m.designCapacityN)} />
                 </td>
-                <td className="px-3 py-2 text-right whitespace-nowrap">
+                <td className="px-2 py-2 text-right whitespace-nowrap">
                   <UtilisationFigure utilisation={m.utilisation} band={m.band} missing={m.designForceN == null ? 'no design force' : 'no result'} />
                 </td>
-                <td className="px-3 py-2 whitespace-nowrap">{m.governing ?? <span className="text-muted">—</span>}</td>
-                <td className="px-3 py-2">
+                <td className="px-2 py-2 whitespace-nowrap">{m.governing ?? <span className="text-muted">—</span>}</td>
+                <td className="px-2 py-2">
                   <BandTag band={m.band} />
                 </td>
-                <td className="px-3 py-2 text-right">{m.warningCount > 0 ? m.warningCount : <span className="text-muted">0</span>}</td>
+                <td className="px-2 py-2 text-right">{m.warningCount > 0 ? m.warningCount : <span className="text-muted">0</span>}</td>
               </tr>
             );
           })}

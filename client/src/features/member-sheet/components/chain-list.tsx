@@ -43,7 +43,8 @@ export function ChainList({
               onClick={() => onHighlight(on ? null : c.key)}
               data-chain-item={c.key}
               className={cx(
-                'w-full rounded-card border px-3 py-2 text-left text-small',
+                // Printed too: the chains are part of the working, not just a control.
+                'w-full rounded-card border px-3 py-2 text-left text-small print:!block',
                 c.governing ? 'border-copper' : 'border-rule',
                 on ? 'bg-copper-wash' : 'bg-card hover:bg-paper',
               )}
@@ -84,7 +85,7 @@ export function ChainList({
           </li>
         );
       })}
-      {chains.length > 1 && <li className="text-fine text-muted">Point at or tab to a chain to draw it on the plate. {formatNumber(chains.length - 1)} next chains shown.</li>}
+      {chains.length > 1 && <li className="no-print text-fine text-muted">Point at or tab to a chain to draw it on the plate. {formatNumber(chains.length - 1)} next chains shown.</li>}
     </ol>
   );
 }

@@ -145,7 +145,16 @@ function Summary({ sheet }: { sheet: Sheet }) {
     { label: 'Design capacity', value: <Figure measure={m.designCapacityN == null ? null : units.force(m.designCapacityN)} /> },
     { label: 'Governed by', value: m.governing ?? '—' },
     { label: 'Profile', value: m.profile ?? '—' },
-    { label: 'Grade', value: m.grade ?? '—' },
+    {
+      label: 'Grade',
+      value: sheet.detail.overrides?.grade ? (
+        <>
+          {String(sheet.detail.overrides.grade.value)} <span className="font-normal text-muted">(override; model: {m.grade ?? 'none'})</span>
+        </>
+      ) : (
+        (sheet.detail.steel?.grade ?? m.grade ?? '—')
+      ),
+    },
     { label: 'Class', value: m.ifcClass },
     { label: 'Gross area Ag', value: <Figure measure={r ? units.area(r.grossArea, units.system === 'si' ? 0 : 3) : null} /> },
     { label: 'Net area An', value: <Figure measure={r ? units.area(r.netArea, units.system === 'si' ? 0 : 3) : null} /> },
@@ -165,10 +174,12 @@ function Summary({ sheet }: { sheet: Sheet }) {
 }
 
 function Ends({ sheet }: { sheet: Sheet }) {
+  const units = useUnits();
   const [highlighted, setHighlighted] = useState<string | null>(null);
   const d = sheet.detail;
   const section = d.profile.section;
-  const ends = d.ends;
+  // An unbolted member is stored with one end that has no holes: nothing to draw there.
+  const ends = d.ends.filter((e) => e.holes.length > 0);
   if (!section) return <p className="text-muted">The section &ldquo;{d.profile.name ?? 'unnamed'}&rdquo; could not be understood, so there is nothing to draw.</p>;
   if (!ends.length) return <p className="text-muted">No bolt holes were found at either end of this member. Net area equals gross area.</p>;
   const net = netResult(sheet.result);
@@ -194,7 +205,7 @@ function Ends({ sheet }: { sheet: Sheet }) {
               </h3>
               <p className="mb-2 text-small text-muted">
                 {end.holes.length} {end.holes.length === 1 ? 'hole' : 'holes'}
-                {end.boltDiameter ? `, bolts ⌀ ${end.boltDiameter} mm` : ''}
+                {end.boltDiameter ? `, bolts ⌀ ${units.length(end.boltDiameter, units.system === 'si' ? 0 : 3).text}` : ''}
                 {end.boltGrade ? ` grade ${end.boltGrade}` : ''}
                 {end.governing ? ` · this end is governed by ${end.governing}` : ''}
               </p>
