@@ -52,9 +52,13 @@ export function sha256OfFile(filePath: string): Promise<string> {
   });
 }
 
-/** A display name safe to store and show: no path parts, no control characters. */
+/** A display name safe to store and show: no path parts, no control characters, no bidi or invisible format characters. */
 export function cleanFileName(original: string): string {
   const base = original.split(/[\\/]/).pop() ?? 'model.ifc';
-  const cleaned = base.replace(/[\u0000-\u001f\u007f<>:"|?*]/g, '_').trim().slice(-200);
+  const cleaned = base
+    .replace(/[\u200b-\u200f\u202a-\u202e\u2060-\u2069\ufeff]/g, '')
+    .replace(/[\u0000-\u001f\u007f<>:"|?*]/g, '_')
+    .trim()
+    .slice(-200);
   return cleaned || 'model.ifc';
 }

@@ -4,6 +4,7 @@ import { randomBytes } from 'node:crypto';
 import path from 'node:path';
 import type { RequestHandler } from 'express';
 import type { AppConfig } from '../../config/config';
+import { AppError } from '../../http/errors';
 import { kindFromName, uploadErrors } from './sniff-upload';
 
 /**
@@ -19,6 +20,8 @@ export function uploadMiddleware(config: AppConfig): RequestHandler {
       filename: (_req, _file, cb) => cb(null, `${Date.now()}-${randomBytes(8).toString('hex')}.upload`),
     }),
     limits: { fileSize: config.uploads.limitBytes, files: 1, fields: 5, fieldSize: 4096, parts: 8 },
+    // Browsers send file names as raw UTF-8; busboy's default (latin1) would garble them.
+    defParamCharset: 'utf8',
     fileFilter: (_req, file, cb) => {
       if (kindFromName(file.originalname)) cb(null, true);
       else cb(uploadErrors.wrongType());
@@ -32,6 +35,11 @@ export function uploadMiddleware(config: AppConfig): RequestHandler {
       if (err instanceof multer.MulterError) {
         if (err.code === 'LIMIT_FILE_SIZE') return next(uploadErrors.tooLarge(limitMb));
         return next(uploadErrors.missing());
+      }
+      // A malformed multipart body (busboy's plain errors) is the client's fault, not a 500;
+      // system errors (disk full and the like) carry a code and stay server errors.
+      if (!(err instanceof AppError) && !(err as NodeJS.ErrnoException)?.code) {
+        return next(new AppError(400, 'upload.malformed', 'The upload could not be read: the request is not a well-formed file form.'));
       }
       next(err);
     });
