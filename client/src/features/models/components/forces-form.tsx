@@ -60,8 +60,8 @@ export function ForcesForm({ projectId, revisionId, revisionNumber }: { projectI
           Forces file
         </label>
         <p id={ids.hint} className="text-small text-muted">
-          A CSV with one row per member and load case: GlobalId or tag, load case, axial force (tension positive). Every row must
-          match, or nothing is applied.
+          A CSV with one row per member and load case, headed <code className="font-mono">GlobalId,LoadCase,N [kN]</code> (or a Tag
+          column, and N [kip] or N [N]); axial force tension positive. Every row must match a member, or nothing is applied.
         </p>
         <input
           ref={inputRef}
