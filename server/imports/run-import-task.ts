@@ -86,5 +86,5 @@ function transferGeometry(outcome: ImportOutcome): ImportOutcome {
   if (!outcome.ok || !outcome.geometry) return outcome;
   Object.defineProperty(outcome, transferableSymbol, { value: [outcome.geometry.buffer] });
   Object.defineProperty(outcome, valueSymbol, { value: { ...outcome } });
-  return move(outcome as never) as ImportOutcome;
+  return move(outcome as never) as unknown as ImportOutcome;
 }
