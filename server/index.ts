@@ -3,6 +3,8 @@ import { loadConfig, ConfigError, type AppConfig } from './config/config';
 import { createDatabase } from './db/database';
 import { migrateToLatest } from './db/migrate';
 import { countDemoAccounts, seedDemoIfEmpty } from './db/seed/demo-seed';
+import { seedDemoModel } from './db/seed/demo-model-seed';
+import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
 import { createLogger } from './logger';
 import { createFileStore } from './storage/file-store-factory';
@@ -12,6 +14,8 @@ import { startSmtpSink, type SmtpSink } from './mail/local-smtp-sink';
 import { notifyImportOutcome } from './mail/import-notifications';
 import path from 'node:path';
 import { closeExportPool } from './exports/export-pool';
+
+const SAMPLES_DIR = fileURLToPath(new URL('../samples', import.meta.url));
 
 export interface RunningServer {
   url: string;
@@ -35,9 +39,11 @@ export async function startServer(env: Record<string, string | undefined> = proc
     await sequelize.close();
     throw new ConfigError(['database: demo accounts exist; remove them before running in production']);
   }
-  if (config.demoSeed && (await seedDemoIfEmpty(sequelize))) logger.info('seeded the demo project and accounts');
+  const seeded = config.demoSeed && (await seedDemoIfEmpty(sequelize));
+  if (seeded) logger.info('seeded the demo project and accounts');
 
   const store = createFileStore(config);
+  if (seeded && config.demoModels && (await seedDemoModel(store, SAMPLES_DIR))) logger.info('queued the demo model for import');
   // No SMTP server configured: keep every message in a local mail service on loopback.
   const mailSink = config.mail.smtp ? null : await startSmtpSink(path.resolve(config.dataDir, 'mail-sink'));
   const mail = new MailService(config, config.mail.smtp ?? { host: mailSink!.host, port: mailSink!.port, secure: false }, logger);

@@ -21,6 +21,8 @@ const envSchema = z.object({
   DATA_DIR: z.string().min(1).default('.data'),
   CLIENT_DIST: z.string().min(1).default('client/dist'),
   DEMO_SEED: z.enum(['on', 'off']).default('on'),
+  /** With the demo seed: also queue the demo model (samples/) for import, with its forces table. */
+  DEMO_MODELS: z.enum(['on', 'off']).default('on'),
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).max(10_000).default(10),
   SIGN_IN_WINDOW_SECONDS: z.coerce.number().int().min(1).max(86_400).default(900),
   LOG_REQUESTS: z.enum(['on', 'off']).default('off'),
@@ -58,6 +60,7 @@ export interface AppConfig {
   dataDir: string;
   clientDist: string;
   demoSeed: boolean;
+  demoModels: boolean;
   signInLimit: { max: number; windowMs: number };
   logRequests: boolean;
   uploads: { limitBytes: number; archiveInflateLimitBytes: number };
@@ -125,6 +128,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     clientDist: e.CLIENT_DIST,
     // Production never seeds demo data, whatever DEMO_SEED says.
     demoSeed: e.NODE_ENV !== 'production' && e.DEMO_SEED === 'on',
+    demoModels: e.DEMO_MODELS === 'on',
     signInLimit: { max: e.SIGN_IN_LIMIT, windowMs: e.SIGN_IN_WINDOW_SECONDS * 1000 },
     logRequests: e.LOG_REQUESTS === 'on',
     uploads: { limitBytes: Math.round(e.UPLOAD_LIMIT_MB * 1024 * 1024), archiveInflateLimitBytes: Math.round(e.ARCHIVE_INFLATE_LIMIT_MB * 1024 * 1024) },

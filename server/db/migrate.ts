@@ -3,6 +3,7 @@ import type { Sequelize } from 'sequelize';
 import * as m0001 from './migrations/0001-foundation';
 import * as m0002 from './migrations/0002-models-and-results';
 import * as m0004 from './migrations/0004-mail-and-tokens';
+import * as m0005 from './migrations/0005-revision-forces-file';
 
 // Migrations are listed explicitly (not globbed) so that the same list works under
 // tsx, vitest and a bundled build, and the order is reviewed in code.
@@ -10,6 +11,7 @@ const MIGRATIONS = [
   { name: '0001-foundation', module: m0001 },
   { name: '0002-models-and-results', module: m0002 },
   { name: '0004-mail-and-tokens', module: m0004 },
+  { name: '0005-revision-forces-file', module: m0005 },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

@@ -4,6 +4,8 @@ import { promises as fsp } from 'node:fs';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
 import Piscina from 'piscina';
+import { readFile } from 'node:fs/promises';
+import { parseForcesCsv, type ForceRow } from '@shared/forces/parse-forces-csv';
 import type { Sequelize } from 'sequelize';
 import type { AppConfig } from '../config/config';
 import type { FileStore } from '../storage/file-store';
@@ -95,6 +97,11 @@ export class ImportRunner {
       const model = await IfcModelModel.findByPk(job.modelId);
       const project = model ? await ProjectModel.findByPk(model.projectId) : null;
       if (!project) throw new Error('the project of this revision no longer exists');
+      const forceRows = job.forcesStorageKey ? await this.readForcesFile(job.forcesStorageKey) : undefined;
+      if (forceRows && 'failure' in forceRows) {
+        await failJob(job.id, this.owner, 'forces.rejected', forceRows.failure);
+        return;
+      }
       local = await this.store.fetchToLocal(job.storageKey);
       const task: ImportTask = {
         filePath: local.path,
@@ -103,6 +110,7 @@ export class ImportRunner {
         defaultGrade: project.defaultGrade,
         inflateLimitBytes: this.config.uploads.archiveInflateLimitBytes,
         progressPort: channel.port2,
+        forceRows,
       };
       const outcome: ImportOutcome = await this.pool.run(task, {
         transferList: [channel.port2] as never,
@@ -146,6 +154,19 @@ export class ImportRunner {
       summary.warnings.push({ code: 'geometry.failed', message: 'The 3D view of this revision could not be stored; results are not affected.', count: 1, examples: [] });
     } finally {
       await fsp.rm(tmp, { force: true }).catch(() => undefined);
+    }
+  }
+
+  /** The rows of a forces table stored with the upload, or the reason it cannot be used. */
+  private async readForcesFile(key: string): Promise<ForceRow[] | { failure: string }> {
+    const local = await this.store.fetchToLocal(key);
+    try {
+      const parsed = parseForcesCsv(await readFile(local.path, 'utf8'));
+      if (!parsed.problems.length) return parsed.rows;
+      const first = parsed.problems[0];
+      return { failure: `The forces table was not applied: line ${first.line}: ${first.message}${parsed.problems.length > 1 ? ` (and ${parsed.problems.length - 1} more)` : ''}.` };
+    } finally {
+      await local.release();
     }
   }
 

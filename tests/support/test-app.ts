@@ -40,6 +40,8 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
       DATA_DIR: path.join(root, '.test-data', db.name),
       CLIENT_DIST: path.join(root, 'client/dist'),
       DEMO_SEED: 'on',
+      // Suites that want the demo model queued at start-up set DEMO_MODELS=on.
+      DEMO_MODELS: 'off',
       ...env,
     },
     true,

@@ -10,6 +10,8 @@ export class RevisionModel extends Model<InferAttributes<RevisionModel>, InferCr
   declare fileSize: number;
   declare sha256: string;
   declare storageKey: string;
+  /** A forces table stored with the upload, applied when the revision is checked. */
+  declare forcesStorageKey: CreationOptional<string | null>;
   declare uploadedById: number | null;
   declare standard: string;
   declare status: JobStatus;
@@ -37,6 +39,7 @@ export function initRevisionModel(sequelize: Sequelize): void {
       fileSize: { type: DataTypes.BIGINT.UNSIGNED, allowNull: false, field: 'file_size', get() { return Number(this.getDataValue('fileSize')); } },
       sha256: { type: DataTypes.CHAR(64), allowNull: false },
       storageKey: { type: DataTypes.STRING(255), allowNull: false, field: 'storage_key' },
+      forcesStorageKey: { type: DataTypes.STRING(255), allowNull: true, field: 'forces_storage_key' },
       uploadedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true, field: 'uploaded_by_id' },
       standard: { type: DataTypes.STRING(20), allowNull: false },
       status: { type: DataTypes.STRING(16), allowNull: false },
