@@ -1,0 +1,2 @@
+export { ModelView } from './components/model-view-lazy';
+export type { ModelViewProps } from './components/model-view';
