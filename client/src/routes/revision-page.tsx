@@ -8,6 +8,7 @@ import { CautionsBlock, ErrorState, LoadingState, Notice, PageHeader, Panel } fr
 import { standardName, useProject } from '../features/projects';
 import { JobReport, useModels, useRevision } from '../features/models';
 import { MemberLedger, RevisionOverviewPanel } from '../features/ledger';
+import { ModelView } from '../features/model-view';
 import { useSignedInUser } from './guards';
 import { positiveId } from './route-ids';
 import { rememberLedgerSearch, useRevisionSelection } from './revision-selection';
@@ -70,6 +71,9 @@ function RevisionResults({ projectId, revisionId }: { projectId: number; revisio
       )}
       {r && r.status === 'done' && (
         <div className="flex flex-col gap-block">
+          <Panel title="Model" description="Steel coloured by result band. Click a member for its figures; the selection is shared with the ledger.">
+            <ModelView projectId={projectId} revisionId={revisionId} selection={selection} onSelectionChange={setSelection} />
+          </Panel>
           <Panel title="Overview" description="Tension members by result band and by utilisation.">
             <RevisionOverviewPanel projectId={projectId} revisionId={revisionId} memberHref={memberHref} />
           </Panel>
