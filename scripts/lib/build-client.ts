@@ -1,4 +1,4 @@
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, renameSync, rmSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { execFileSync } from 'node:child_process';
 
@@ -10,7 +10,7 @@ function newestMtime(p: string): number {
   if (!st.isDirectory()) return st.mtimeMs;
   let newest = 0;
   for (const entry of readdirSync(p)) {
-    if (entry === 'dist' || entry === 'node_modules') continue;
+    if (entry.startsWith('dist') || entry === 'node_modules') continue;
     newest = Math.max(newest, newestMtime(path.join(p, entry)));
   }
   return newest;
@@ -26,10 +26,17 @@ export function buildClientIfStale(root: string): void {
   // Another build of the same checkout (a second terminal) holds Vite's lock: wait for it.
   for (let attempt = 1; ; attempt++) {
     try {
-      execFileSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], {
+      // Build beside the live folder and swap, so servers already running keep serving a whole client.
+      const staging = path.join(root, `client/dist.building-${process.pid}`);
+      execFileSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn', '--outDir', staging, '--emptyOutDir'], {
         cwd: root,
         stdio: ['ignore', 'inherit', 'pipe'],
       });
+      const live = path.join(root, 'client/dist');
+      const old = path.join(root, `client/dist.old-${process.pid}`);
+      if (existsSync(live)) renameSync(live, old);
+      renameSync(staging, live);
+      rmSync(old, { recursive: true, force: true });
       return;
     } catch (err) {
       const stderr = String((err as { stderr?: Buffer }).stderr ?? '');

@@ -42,6 +42,8 @@ export async function recheckMember(
   transaction: Transaction,
 ): Promise<boolean> {
   const detail = member.detail as MemberDetail;
+  // The table shows the grade the check used: an override's, else the model's material.
+  member.gradeName = detail.overrides?.grade ? String(detail.overrides.grade.value) : (detail.material?.name ?? null);
   const forced = detail.overrides?.designForceN;
   member.designForceN = forced ? Number(forced.value) : modelForce.force;
   member.forceSource = forced ? 'override' : modelForce.source;
