@@ -11,7 +11,7 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias: { '@shared': shared } },
-        test: { name: 'unit', include: ['shared/**/*.test.ts', 'tests/unit/**/*.test.ts', 'server/**/*.test.ts', 'client/src/**/*.test.ts'], environment: 'node' },
+        test: { name: 'unit', include: ['shared/**/*.test.ts', 'tests/unit/**/*.test.ts', 'server/**/*.test.ts', 'client/src/**/*.test.ts'], environment: 'node', testTimeout: 60_000 },
       },
       {
         resolve: { alias: { '@shared': shared } },

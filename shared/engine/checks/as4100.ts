@@ -16,6 +16,8 @@ import { AS_FUF, coreArea, normaliseBoltGrade, shankArea } from './bolt-data.ts'
  */
 export function checkAs4100(input: MemberCheckInput): CheckResult {
   const rec = new Recorder();
+  // Every result names the edition it follows, so reports and exports never have to guess.
+  rec.assume('edition', 'AS 4100-1998 incl. Amdt 1:2012', 'clause numbers of that edition; believed unchanged in AS 4100:2020 (from memory)');
   const m = prepareMember(input, rec);
   const { fy, fu } = m.steel;
   const An = areaSteps(m, rec, 'AS 4100 Cl. 9.1.10 (from memory)');
@@ -31,7 +33,7 @@ export function checkAs4100(input: MemberCheckInput): CheckResult {
   rec.mode('gross yield', rec.step('φNty', 'design yield capacity', 'φ·Ag·fy', `${phi} × ${fmt(ny)}`, phi * ny, 'N', 'AS 4100 Cl. 7.1'), 'AS 4100 Cl. 7.2');
   rec.mode('net fracture', rec.step('φNtf', 'design fracture capacity', 'φ·0.85·kt·An·fu', `${phi} × ${fmt(nf)}`, phi * nf, 'N', 'AS 4100 Cl. 7.1'), 'AS 4100 Cl. 7.2');
   if (input.bolts) boltModes(m, rec);
-  return finish('AS 4100', m, rec, An);
+  return finish('AS 4100-1998 incl. Amdt 1:2012', m, rec, An);
 }
 
 function boltModes(m: PreparedMember, rec: Recorder): void {

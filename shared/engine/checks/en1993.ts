@@ -14,6 +14,7 @@ import { enConnectionModes } from './en1993-connection.ts';
  */
 export function checkEn1993(input: MemberCheckInput): CheckResult {
   const rec = new Recorder();
+  rec.assume('edition', 'EN 1993-1-1:2005 and EN 1993-1-8:2005 (first generation)', 'partial factors and fy/fu source as set for the national annex');
   const m = prepareMember(input, rec);
   const gM0 = input.overrides.gammaM0 ?? 1.0;
   const gM2 = input.overrides.gammaM2 ?? 1.25;
@@ -42,7 +43,7 @@ export function checkEn1993(input: MemberCheckInput): CheckResult {
     rec.mode('net fracture (Nu,Rd)', nu, 'EN 1993-1-1 eq. 6.7');
   }
   if (input.bolts) enConnectionModes(m, rec, gM0, gM2);
-  return finish('EN 1993-1-1/1-8', m, rec, An);
+  return finish('EN 1993-1-1:2005 / EN 1993-1-8:2005', m, rec, An);
 }
 
 /** The data for 3.10.3 when it applies: a single angle with one row of bolts in the connected leg. */
