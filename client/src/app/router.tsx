@@ -3,6 +3,8 @@ import { RootLayout } from '../routes/root-layout';
 import { RouteError } from '../routes/route-error';
 import { RequireRole, RequireSignedIn } from '../routes/guards';
 import { SignInPage } from '../routes/sign-in-page';
+import { ForgotPasswordPage } from '../routes/forgot-password-page';
+import { SetPasswordPage } from '../routes/set-password-page';
 import { ProjectsPage } from '../routes/projects-page';
 import { ProjectPage } from '../routes/project-page';
 import { RevisionPage } from '../routes/revision-page';
@@ -16,6 +18,8 @@ import { NotFoundPage } from '../routes/not-found-page';
 /**
  * Routes:
  *   /sign-in              public
+ *   /forgot-password      public: ask for a link to choose a new password
+ *   /set-password         public: choose a password from an e-mailed link (#token=…)
  *   /about                public: scope and cautions
  *   /                     projects (create form for admin and engineer)
  *   /projects/:projectId  project overview: models, revisions, uploads
@@ -32,6 +36,8 @@ export function createRouter() {
       errorElement: <RouteError />,
       children: [
         { path: 'sign-in', element: <SignInPage /> },
+        { path: 'forgot-password', element: <ForgotPasswordPage /> },
+        { path: 'set-password', element: <SetPasswordPage /> },
         { path: 'about', element: <AboutPage /> },
         {
           element: <RequireSignedIn />,

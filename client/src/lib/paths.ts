@@ -2,6 +2,9 @@
 export const paths = {
   home: '/',
   signIn: '/sign-in',
+  forgotPassword: '/forgot-password',
+  /** Where e-mailed one-time links land (the token travels in the URL fragment). */
+  setPassword: '/set-password',
   account: '/account',
   about: '/about',
   project: (projectId: number | string) => `/projects/${encodeURIComponent(String(projectId))}`,
@@ -11,8 +14,12 @@ export const paths = {
   /** One member's sheet, keyed by its IFC GlobalId. */
   member: (projectId: number | string, revisionId: number | string, globalId: string) =>
     `/projects/${encodeURIComponent(String(projectId))}/revisions/${encodeURIComponent(String(revisionId))}/members/${encodeURIComponent(globalId)}`,
+  /** What changed in a revision since an earlier one (`withRevisionId`), member by member. */
+  revisionChanges: (projectId: number | string, revisionId: number | string, withRevisionId?: number | string) =>
+    `/projects/${encodeURIComponent(String(projectId))}/revisions/${encodeURIComponent(String(revisionId))}/changes${withRevisionId ? `?with=${encodeURIComponent(String(withRevisionId))}` : ''}`,
   adminPeople: '/admin/people',
   adminProjects: '/admin/projects',
+  adminOutbox: '/admin/outbox',
 } as const;
 
 /**

@@ -30,4 +30,12 @@ export const queryKeys = {
     all: ['users'] as const,
     list: () => ['users', 'list'] as const,
   },
+  /** The outbox (admins). */
+  mail: {
+    all: ['mail'] as const,
+    list: () => ['mail', 'list'] as const,
+    message: (mailId: number) => ['mail', 'message', mailId] as const,
+  },
+  /** What changed between two revisions. */
+  comparison: (projectId: number, revisionId: number, withRevisionId: number) => ['results', projectId, revisionId, 'comparison', withRevisionId] as const,
 };

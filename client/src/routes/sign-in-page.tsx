@@ -29,7 +29,16 @@ export function SignInPage() {
         </p>
       </div>
       <Card className="px-6 py-6">
-        {error ? <ErrorState title="Gaugeline could not reach the server" error={error} onRetry={retry} /> : <SignInForm onSignedIn={() => navigate(next, { replace: true })} />}
+        {error ? (
+          <ErrorState title="Gaugeline could not reach the server" error={error} onRetry={retry} />
+        ) : (
+          <>
+            <SignInForm onSignedIn={() => navigate(next, { replace: true })} />
+            <p className="mt-5 border-t border-rule pt-4 text-small">
+              <Link to={paths.forgotPassword}>Forgot your password?</Link>
+            </p>
+          </>
+        )}
       </Card>
     </div>
   );

@@ -4,3 +4,5 @@ export { SignOutButton } from './components/sign-out-button';
 export { ChangePasswordForm } from './components/change-password-form';
 export { AccountSummary } from './components/account-summary';
 export { useCurrentUser } from './hooks/use-current-user';
+export { ForgotPasswordForm } from './components/forgot-password-form';
+export { SetPasswordForm } from './components/set-password-form';
