@@ -23,7 +23,7 @@ export function AdminPeoplePage() {
           <PeopleTable currentUserId={user.id} />
         </Panel>
         <div id="add-person" className="no-print scroll-mt-4">
-          <Panel title="Add a person" description="They can sign in as soon as they have a password.">
+          <Panel title="Add a person" description="They can sign in once they have a password: one you give them, or one they choose from the e-mailed invitation.">
             <CreatePersonForm />
           </Panel>
         </div>

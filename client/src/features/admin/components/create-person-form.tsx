@@ -8,10 +8,10 @@ import { useCreateUser } from '../api/use-create-user';
 const initial = { email: '', name: '', role: 'engineer', password: '' };
 const roleOptions = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
 
-/** Adds a person: e-mail, name, role and (for now) a starting password. */
+/** Adds a person: e-mail, name, role, and either a starting password or an e-mailed invitation. */
 export function CreatePersonForm({ onCreated }: { onCreated?: (user: User) => void }) {
   const create = useCreateUser();
-  const [added, setAdded] = useState<User | null>(null);
+  const [added, setAdded] = useState<{ user: User; invited: boolean } | null>(null);
   const form = useZodForm({
     initial,
     schema: createUserRequestSchema,
@@ -22,7 +22,7 @@ export function CreatePersonForm({ onCreated }: { onCreated?: (user: User) => vo
     setAdded(null);
     const user = await create.mutateAsync(request);
     form.reset();
-    setAdded(user);
+    setAdded({ user, invited: !request.password });
     onCreated?.(user);
   });
 
@@ -34,7 +34,8 @@ export function CreatePersonForm({ onCreated }: { onCreated?: (user: User) => vo
         </Notice>
       )}
       {added && (
-        <Notice tone="success" title={`${added.name} added as ${ROLE_LABELS[added.role]}`}>
+        <Notice tone="success" title={`${added.user.name} added as ${ROLE_LABELS[added.user.role]}`}>
+          {added.invited && <>An invitation is on its way to {added.user.email}, with a link to choose a password. </>}
           Give them access to their projects under Project access.
         </Notice>
       )}
@@ -48,7 +49,7 @@ export function CreatePersonForm({ onCreated }: { onCreated?: (user: User) => vo
             type="password"
             optional
             autoComplete="new-password"
-            description={`At least ${PASSWORD_MIN_LENGTH} characters; pass it on privately and ask them to change it under Account. Without one, the account waits for an invitation e-mail, which arrives in a later release.`}
+            description={`Leave empty to e-mail them an invitation with a link to choose their own password. If you set one (at least ${PASSWORD_MIN_LENGTH} characters), pass it on privately and ask them to change it under Account.`}
             {...form.field('password')}
           />
         </div>

@@ -5,6 +5,7 @@ import { formatDateTime } from '../../../lib/format';
 import { ROLE_LABELS } from '../../../lib/roles';
 import { Badge, Button, ConfirmDialog, EmptyState, ErrorState, LoadingState, Notice, RowHeader, Select, Table, TBody, TextField, THead, Td, Th, Tr } from '../../../ui';
 import { useUpdateUser } from '../api/use-update-user';
+import { useResendInvitation } from '../api/use-resend-invitation';
 import { useUsers } from '../api/use-users';
 
 type Outcome = { tone: 'success' | 'error'; text: string } | null;
@@ -15,6 +16,7 @@ const roleOptions = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role]
 export function PeopleTable({ currentUserId }: { currentUserId: number }) {
   const users = useUsers();
   const update = useUpdateUser();
+  const invite = useResendInvitation();
   const [filter, setFilter] = useState('');
   const [outcome, setOutcome] = useState<Outcome>(null);
   const [confirming, setConfirming] = useState<User | null>(null);
@@ -31,6 +33,14 @@ export function PeopleTable({ currentUserId }: { currentUserId: number }) {
     );
   };
 
+  const inviteAgain = (user: User) => {
+    setOutcome(null);
+    invite.mutate(user.id, {
+      onSuccess: (message) => setOutcome({ tone: 'success', text: message }),
+      onError: (error) => setOutcome({ tone: 'error', text: `${user.name}: ${errorMessage(error)}` }),
+    });
+  };
+
   if (users.isPending) return <LoadingState label="Loading people…" />;
   if (users.isError) return <ErrorState title="People could not be loaded" error={users.error} onRetry={() => void users.refetch()} />;
 
@@ -44,7 +54,7 @@ export function PeopleTable({ currentUserId }: { currentUserId: number }) {
       <TextField label="Find a person" type="search" description="By name or e-mail address." value={filter} onChange={(e) => setFilter(e.target.value)} className="max-w-sm" />
       <div aria-live="polite">
         {outcome && (
-          <Notice tone={outcome.tone} title={outcome.tone === 'error' ? 'Not changed' : undefined}>
+          <Notice tone={outcome.tone} title={outcome.tone === 'error' ? 'Not done' : undefined}>
             {outcome.text}
           </Notice>
         )}
@@ -85,9 +95,23 @@ export function PeopleTable({ currentUserId }: { currentUserId: number }) {
                   <Td numeric>{formatDateTime(user.lastSignInAt, 'Never')}</Td>
                   <Td className="text-right">
                     {self ? null : user.active ? (
-                      <Button variant="danger" size="sm" onClick={() => setConfirming(user)} aria-label={`Deactivate ${user.name}`}>
-                        Deactivate
-                      </Button>
+                      <div className="flex flex-wrap justify-end gap-2">
+                        {user.lastSignInAt === null && (
+                          <Button
+                            variant="secondary"
+                            size="sm"
+                            busy={invite.isPending && invite.variables === user.id}
+                            onClick={() => inviteAgain(user)}
+                            aria-label={`Send ${user.name} the invitation again`}
+                            title="A new link to choose a password; earlier links stop working"
+                          >
+                            Send invitation again
+                          </Button>
+                        )}
+                        <Button variant="danger" size="sm" onClick={() => setConfirming(user)} aria-label={`Deactivate ${user.name}`}>
+                          Deactivate
+                        </Button>
+                      </div>
                     ) : (
                       <Button
                         variant="secondary"
