@@ -31,6 +31,13 @@ export interface DisplayGeometryOptions {
   chunkSize?: number;
   /** Stop adding elements once this much time has passed (the file is then partial). */
   timeBudgetMs?: number;
+  /**
+   * Cut openings (holes, notches) into the elements only up to this many IfcRelVoidsElement
+   * (default 1500). Openings are boolean operations in web-ifc and cost about 4 ms each;
+   * beyond the limit elements are drawn uncut, which reads the same at model scale (the
+   * member sheet draws the holes). The header says which.
+   */
+  openingsLimit?: number;
 }
 
 export interface DisplayGeometryResult {
@@ -39,6 +46,8 @@ export interface DisplayGeometryResult {
     elements: number;
     withGeometry: number;
     contextElements: number;
+    /** Openings were cut into the elements (false: more than `openingsLimit`). */
+    openingsCut: boolean;
     vertices: number;
     triangles: number;
     /** Elements asked for but not streamed because the time budget ran out. */
@@ -185,6 +194,15 @@ export async function buildDisplayGeometry(bytes: Uint8Array, options: DisplayGe
   const opened = openModel(api, bytes);
   try {
     const list = targets(api, opened.modelID, options.context ?? true);
+    // This model instance is ours alone: forgetting the void relations only changes what we draw.
+    let voids: number[] = [];
+    try {
+      voids = [...api.GetLineIDsWithType(opened.modelID, W.IFCRELVOIDSELEMENT)];
+    } catch {
+      voids = [];
+    }
+    const openingsCut = voids.length <= (options.openingsLimit ?? 1500);
+    if (!openingsCut) for (const id of voids) api.DeleteLine(opened.modelID, id);
     const byId = new Map(list.map((t) => [t.expressID, t]));
     const positions = growF32();
     const indices = growU32();
@@ -306,7 +324,7 @@ export async function buildDisplayGeometry(bytes: Uint8Array, options: DisplayGe
     const idx32 = indices.view();
     const wide = entries.some((e) => e.vertexCount > 0xffff);
     const out = writeDisplayGeometry({
-      header: { version: 1, units: 'm', up: 'Y', offset, bbox, vertexCount: pos.length / 3, indexCount: idx32.length, indexType: wide ? 'uint32' : 'uint16', entries },
+      header: { version: 1, units: 'm', up: 'Y', openingsCut, offset, bbox, vertexCount: pos.length / 3, indexCount: idx32.length, indexType: wide ? 'uint32' : 'uint16', entries },
       positions: pos,
       indices: wide ? idx32 : Uint16Array.from(idx32),
     });
@@ -316,6 +334,7 @@ export async function buildDisplayGeometry(bytes: Uint8Array, options: DisplayGe
         elements: list.length,
         withGeometry: entries.length,
         contextElements: entries.filter((e) => e.context).length,
+        openingsCut,
         vertices: pos.length / 3,
         triangles: idx32.length / 3,
         skipped,

@@ -46,6 +46,8 @@ export interface DisplayGeometryHeader {
   version: number;
   units: 'm';
   up: 'Y';
+  /** Openings (holes, notches) are cut into the elements; false for big models drawn uncut. */
+  openingsCut?: boolean;
   /** Subtracted from every position when written (metres, web-ifc's Y-up world frame). */
   offset: [number, number, number];
   /** Bounds of the stored (recentred) positions. */

@@ -73,6 +73,17 @@ describe('display geometry of the Kestrel Yard sample', () => {
     expect(worst).toBeLessThan(1e-3);
   });
 
+  it('draws big models uncut: beyond the openings limit the holes are left out, the members stay', async () => {
+    const cut = await buildDisplayGeometry(SAMPLE);
+    const uncut = await buildDisplayGeometry(SAMPLE, { openingsLimit: 0 });
+    expect(cut.stats.openingsCut).toBe(true);
+    expect(uncut.stats.openingsCut).toBe(false);
+    const g = parseDisplayGeometry(uncut.bytes);
+    expect(g.header.openingsCut).toBe(false);
+    expect(g.header.entries.map((e) => e.globalId).sort()).toEqual(parseDisplayGeometry(cut.bytes).header.entries.map((e) => e.globalId).sort());
+    expect(uncut.stats.triangles).toBeLessThan(cut.stats.triangles);
+  });
+
   it('reads back what it writes (parse ∘ write is the identity)', async () => {
     const g = parseDisplayGeometry((await buildDisplayGeometry(SAMPLE)).bytes);
     const again = parseDisplayGeometry(writeDisplayGeometry(g));
