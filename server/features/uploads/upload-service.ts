@@ -1,5 +1,5 @@
 import { rm } from 'node:fs/promises';
-import { fn, col, type Sequelize } from 'sequelize';
+import { fn, col, UniqueConstraintError, type Sequelize } from 'sequelize';
 import type { SessionUser } from '@shared/api/session';
 import type { ProjectModel } from '../../db/models/project';
 import { IfcModelModel } from '../../db/models/ifc-model';
@@ -17,6 +17,20 @@ export interface ReceivedFile {
 export interface UploadOutcome {
   revision: RevisionModel;
   duplicateOf: number | null;
+}
+
+/** The project's model of that name, created if missing; safe against concurrent creation. */
+async function findOrCreateModel(projectId: number, name: string): Promise<IfcModelModel> {
+  const existing = await IfcModelModel.findOne({ where: { projectId, name } });
+  if (existing) return existing;
+  try {
+    return await IfcModelModel.create({ projectId, name });
+  } catch (err) {
+    if (!(err instanceof UniqueConstraintError)) throw err;
+    const winner = await IfcModelModel.findOne({ where: { projectId, name } });
+    if (!winner) throw err;
+    return winner;
+  }
 }
 
 /** Default model name: the file name without its extension. */
@@ -54,9 +68,13 @@ export async function acceptUpload(
     // Content-addressed: the same bytes uploaded elsewhere are stored once.
     if (!(await store.exists(storageKey))) await store.put(storageKey, file.path);
 
+    // The model row is made outside the transaction: concurrent first uploads under one new
+    // name then meet the unique index (one insert wins, the others read its row) instead of
+    // deadlocking on gap locks inside their transactions.
+    const model = await findOrCreateModel(project.id, modelName);
     const revision = await sequelize.transaction(async (transaction) => {
-      const [model] = await IfcModelModel.findOrCreate({ where: { projectId: project.id, name: modelName }, transaction });
-      // Lock the model row so two uploads at once get distinct revision numbers.
+      // Lock the model row first, so two uploads at once get distinct revision numbers: as the
+      // transaction's first read it also makes the MAX below see every committed revision.
       await IfcModelModel.findByPk(model.id, { transaction, lock: transaction.LOCK.UPDATE });
       const max = (await RevisionModel.findOne({
         attributes: [[fn('MAX', col('number')), 'max']],
