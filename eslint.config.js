@@ -11,7 +11,7 @@ const clientPatterns = [
   { group: ['**/server/**', '../server/*'], message: 'client/ must not import from server/.' },
   { group: ['web-ifc', 'web-ifc/*'], message: 'Only server/ifc/ imports web-ifc.' },
 ];
-const clientFeatures = ['session', 'projects', 'admin', 'models', 'ledger', 'member-sheet'];
+const clientFeatures = ['session', 'projects', 'admin', 'models', 'ledger', 'member-sheet', 'mail', 'changes'];
 
 export default tseslint.config(
   { ignores: ['node_modules/**', 'client/dist/**', 'dist/**', '.data/**', '.test-data/**'] },

@@ -12,6 +12,7 @@ import { MemberPage } from '../routes/member-page';
 import { AccountPage } from '../routes/account-page';
 import { AdminPeoplePage } from '../routes/admin-people-page';
 import { AdminProjectsPage } from '../routes/admin-projects-page';
+import { AdminOutboxMessagePage, AdminOutboxPage } from '../routes/admin-outbox-page';
 import { AboutPage } from '../routes/about-page';
 import { NotFoundPage } from '../routes/not-found-page';
 
@@ -28,6 +29,7 @@ import { NotFoundPage } from '../routes/not-found-page';
  *   /account              your details, change password
  *   /admin/people         admin only
  *   /admin/projects       admin only (project access)
+ *   /admin/outbox         admin only: outgoing mail; /admin/outbox/:mailId one message
  */
 export function createRouter() {
   return createBrowserRouter([
@@ -53,6 +55,8 @@ export function createRouter() {
               children: [
                 { path: 'people', element: <AdminPeoplePage /> },
                 { path: 'projects', element: <AdminProjectsPage /> },
+                { path: 'outbox', element: <AdminOutboxPage /> },
+                { path: 'outbox/:mailId', element: <AdminOutboxMessagePage /> },
               ],
             },
             { path: '*', element: <NotFoundPage /> },

@@ -14,7 +14,7 @@ const linkClass = ({ isActive }: { isActive: boolean }) =>
 
 /**
  * The main navigation. Everyone: Projects, Account, Sign out. Admins also get the
- * Admin group: People and Project access.
+ * Admin group: People, Project access and Outgoing mail.
  */
 export function MainNav({ user }: { user: SessionUser }) {
   const isAdmin = user.role === 'admin';
@@ -46,6 +46,11 @@ export function MainNav({ user }: { user: SessionUser }) {
             <li>
               <NavLink to={paths.adminProjects} className={linkClass}>
                 Project access
+              </NavLink>
+            </li>
+            <li>
+              <NavLink to={paths.adminOutbox} className={linkClass}>
+                Outgoing mail
               </NavLink>
             </li>
           </ul>

@@ -13,3 +13,5 @@ export { BandSwatch, BandTag, BandLegend, UtilisationFigure, bandFill } from './
 export { Figure } from './figure';
 export { UnitsSwitch } from './units-switch';
 export { CautionsBlock } from './cautions';
+export { Checkbox, ChoiceGroup } from './choice';
+export { Modal } from './modal';
