@@ -41,8 +41,12 @@ const norm = (h: string) => h.replace(/^\uFEFF/, '').trim();
  */
 export function parseForcesCsv(text: string): ParsedForces {
   let records: string[][];
+  // One delimiter per file, taken from the header row: with several at once, a decimal comma
+  // in a semicolon-separated file ("12,5") would split into two cells and read as 12.
+  const headerLine = text.replace(/^\uFEFF/, '').split(/\r?\n/, 1)[0];
+  const delimiter = headerLine.includes(';') ? ';' : headerLine.includes('\t') ? '\t' : ',';
   try {
-    records = parse(text, { delimiter: [',', ';', '\t'], relax_column_count: true, skip_empty_lines: true, trim: true, bom: true });
+    records = parse(text, { delimiter, relax_column_count: true, skip_empty_lines: true, trim: true, bom: true });
   } catch (err) {
     return { unit: '', rows: [], problems: [{ line: 0, message: `The file is not a readable CSV table (${(err as Error).message}).` }] };
   }
@@ -71,6 +75,10 @@ export function parseForcesCsv(text: string): ParsedForces {
     const t = tag >= 0 ? (rec[tag] ?? '').trim() : '';
     const loadCase = (rec[lc] ?? '').trim();
     const raw = (rec[fi] ?? '').trim().replace(',', '.');
+    // More filled cells than the header names: most likely a decimal comma in a comma-separated file.
+    if (rec.slice(header.length).some((c) => c.trim() !== '')) {
+      return problems.push({ line, message: `the row has more cells than the header; write decimals with a point, or separate columns with ";"` });
+    }
     if (!g && !t) return problems.push({ line, message: 'no GlobalId or Tag' });
     if (g && !/^[0-9A-Za-z_$]{22}$/.test(g)) return problems.push({ line, message: `"${g}" is not an IFC GlobalId (22 characters)` });
     if (!loadCase) return problems.push({ line, message: 'no LoadCase' });
