@@ -12,7 +12,7 @@ import type Piscina from 'piscina';
 import request from 'supertest';
 import { startTestApp, type TestApp } from '../support/test-app';
 import { signIn, DEMO, type Caller } from '../support/api-client';
-import { dbQuery, importEnded, uploadFile } from '../support/imports';
+import { importEnded, revisionRowsJson, uploadFile } from '../support/imports';
 import { waitFor } from '../support/wait-for';
 import { mutate } from '../support/ifc-mutations';
 
@@ -30,17 +30,7 @@ let projectB: number;
 /** Revisions nobody touches after the start: one in each project. */
 const untouched: number[] = [];
 
-/** Every stored row of one revision: the revision, its members, results and forces. */
-async function revisionRows(revisionId: number): Promise<string> {
-  const db = app.dbName;
-  const rows = {
-    revision: await dbQuery(db, 'SELECT * FROM revisions WHERE id = ?', [revisionId]),
-    members: await dbQuery(db, 'SELECT * FROM members WHERE revision_id = ? ORDER BY id', [revisionId]),
-    results: await dbQuery(db, 'SELECT c.* FROM check_results c JOIN members m ON m.id = c.member_id WHERE m.revision_id = ? ORDER BY c.id', [revisionId]),
-    forces: await dbQuery(db, 'SELECT f.* FROM member_forces f JOIN members m ON m.id = f.member_id WHERE m.revision_id = ? ORDER BY f.id', [revisionId]),
-  };
-  return JSON.stringify(rows);
-}
+const revisionRows = (revisionId: number) => revisionRowsJson(app.dbName, revisionId);
 
 async function importOk(caller: Caller, projectId: number, bytes: Buffer, modelName: string): Promise<number> {
   const up = await uploadFile(caller, projectId, bytes, 'model.ifc', modelName);
