@@ -7,6 +7,7 @@ import { startTestApp, type TestApp } from '../support/test-app';
 import { anonymous, signIn, DEMO } from '../support/api-client';
 import { DEMO_PASSWORD } from '../../server/db/seed/demo-seed';
 import { ERROR_IDS } from '@shared/api/errors';
+import { loadConfig } from '../../server/config/config';
 
 let app: TestApp;
 
@@ -137,5 +138,24 @@ describe('session cookies', () => {
     await agent.delete('/api/session').set('X-CSRF-Token', signedIn.body.csrfToken).expect(200);
     const res = await request(app.url).post('/api/projects').set('Cookie', cookie).set('X-CSRF-Token', signedIn.body.csrfToken).send({ name: 'After sign-out' });
     expect(res.status).toBe(403);
+  });
+});
+
+describe('production settings', () => {
+  it('marks the session cookie Secure in production and not in development', () => {
+    const prod = loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'p'.repeat(32), SMTP_HOST: 'mail.example.test' });
+    expect(prod.session.secureCookie).toBe(true);
+    expect(prod.demoSeed).toBe(false);
+    expect(loadConfig({ NODE_ENV: 'development' }).session.secureCookie).toBe(false);
+  });
+
+  it('the test app (not production) sends the cookie HttpOnly and SameSite=Lax with a bounded lifetime', async () => {
+    const res = await request(app.url).get('/api/session');
+    const cookie = ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('gaugeline.sid='))!;
+    expect(cookie).toMatch(/HttpOnly/i);
+    expect(cookie).toMatch(/SameSite=Lax/i);
+    const expires = /Expires=([^;]+)/i.exec(cookie)?.[1];
+    expect(expires).toBeDefined();
+    expect(new Date(expires!).getTime() - Date.now()).toBeLessThanOrEqual(app.server.config.session.maxAgeMs + 60_000);
   });
 });

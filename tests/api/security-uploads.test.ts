@@ -14,6 +14,7 @@ import { DEMO } from '../support/api-client';
 import { DEMO_PASSWORD } from '../../server/db/seed/demo-seed';
 import { dbQuery, filesUnder } from '../support/imports';
 import { waitFor } from '../support/wait-for';
+import { LocalFileStore } from '../../server/storage/local-file-store';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
@@ -183,5 +184,16 @@ describe('file names', () => {
     for (const key of stored) expect(key).toMatch(/^ifc\/[0-9a-f]{64}\.(ifc|ifczip)$/);
     const everything = filesUnder(app.server.config.dataDir);
     expect(everything.filter((f) => /evil|hidden|report|passwd/.test(f))).toEqual([]);
+  });
+});
+
+describe('storage keys', () => {
+  it('the local store refuses keys that could escape its folder', async () => {
+    const store = new LocalFileStore(storeDir());
+    for (const key of ['../escape.ifc', 'ifc/../../escape.ifc', '/etc/passwd', 'IFC/Upper.ifc', '.hidden', `ifc/${'a'.repeat(300)}`]) {
+      await expect(store.exists(key), key).rejects.toThrow(/unsafe storage key/);
+      await expect(store.put(key, path.join(root, 'samples/kestrel-yard-shed.ifc')), key).rejects.toThrow(/unsafe storage key/);
+    }
+    expect(filesUnder(path.dirname(storeDir())).filter((f) => /escape|passwd/.test(f))).toEqual([]);
   });
 });
