@@ -9,6 +9,7 @@ import { ProjectsPage } from '../routes/projects-page';
 import { ProjectPage } from '../routes/project-page';
 import { RevisionPage } from '../routes/revision-page';
 import { MemberPage } from '../routes/member-page';
+import { RevisionChangesPage } from '../routes/revision-changes-page';
 import { AccountPage } from '../routes/account-page';
 import { AdminPeoplePage } from '../routes/admin-people-page';
 import { AdminProjectsPage } from '../routes/admin-projects-page';
@@ -26,6 +27,7 @@ import { NotFoundPage } from '../routes/not-found-page';
  *   /projects/:projectId  project overview: models, revisions, uploads
  *   /projects/:projectId/revisions/:revisionId                     a revision's results
  *   /projects/:projectId/revisions/:revisionId/members/:globalId   one member's sheet
+ *   /projects/:projectId/revisions/:revisionId/changes?with=<id>  what changed since an earlier revision
  *   /account              your details, change password
  *   /admin/people         admin only
  *   /admin/projects       admin only (project access)
@@ -48,6 +50,7 @@ export function createRouter() {
             { path: 'projects/:projectId', element: <ProjectPage /> },
             { path: 'projects/:projectId/revisions/:revisionId', element: <RevisionPage />, handle: { wide: true } },
             { path: 'projects/:projectId/revisions/:revisionId/members/:globalId', element: <MemberPage />, handle: { wide: true } },
+            { path: 'projects/:projectId/revisions/:revisionId/changes', element: <RevisionChangesPage />, handle: { wide: true } },
             { path: 'account', element: <AccountPage /> },
             {
               path: 'admin',

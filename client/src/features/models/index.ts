@@ -3,4 +3,5 @@ export { ModelsList } from './components/models-panel';
 export { UploadForm } from './components/upload-form';
 export { useModels } from './api/use-models';
 export { useRevision } from './api/use-revision';
+export { useRevisions } from './api/use-revisions';
 export { JobReport, JobStatusBadge } from './components/job-status';

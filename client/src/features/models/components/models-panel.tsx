@@ -3,7 +3,7 @@ import { Link } from 'react-router';
 import type { IfcModel, Revision } from '@shared/api';
 import { formatCount, formatDateTime } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
-import { Button, EmptyState, ErrorState, LoadingState, Table, TBody, Td, Th, THead, Tr, RowHeader } from '../../../ui';
+import { Button, buttonClass, EmptyState, ErrorState, LoadingState, Table, TBody, Td, Th, THead, Tr, RowHeader } from '../../../ui';
 import { useModels } from '../api/use-models';
 import { useRevisions } from '../api/use-revisions';
 import { useRevision } from '../api/use-revision';
@@ -57,6 +57,11 @@ function ModelEntry({ projectId, model, canEdit }: { projectId: number; model: I
         <Button variant="quiet" size="sm" aria-expanded={showHistory} onClick={() => setShowHistory((v) => !v)}>
           {showHistory ? 'Hide revision history' : 'Revision history'}
         </Button>
+        {model.revisionCount >= 2 && latest?.status === 'done' && (
+          <Link to={paths.revisionChanges(projectId, latest.id)} className={buttonClass('quiet', 'sm')}>
+            Compare with previous<span className="sr-only"> revision: what changed in revision {latest.number} of {model.name}</span>
+          </Link>
+        )}
         {canEdit && latest?.status === 'done' && (
           <Button variant="quiet" size="sm" aria-expanded={showForces} onClick={() => setShowForces((v) => !v)}>
             {showForces ? 'Close forces file' : 'Apply a forces file'}
@@ -92,6 +97,9 @@ function RevisionHistory({ projectId, model }: { projectId: number; model: IfcMo
           <Th>Uploaded</Th>
           <Th>State</Th>
           <Th numeric>Checked</Th>
+          <Th>
+            <span className="sr-only">Changes</span>
+          </Th>
         </tr>
       </THead>
       <TBody>
@@ -112,6 +120,13 @@ function RevisionHistory({ projectId, model }: { projectId: number; model: IfcMo
               {r.status === 'failed' && r.failure && <span className="mt-1 block text-fine text-fault">{r.failure.message}</span>}
             </Td>
             <Td numeric>{r.summary ? formatCount(r.summary.checked) : '—'}</Td>
+            <Td className="text-right whitespace-nowrap">
+              {r.status === 'done' && revisions.data.some((x) => x.number < r.number && x.status === 'done') && (
+                <Link to={paths.revisionChanges(projectId, r.id)}>
+                  Compare with previous<span className="sr-only"> revision: what changed in revision {r.number}</span>
+                </Link>
+              )}
+            </Td>
           </Tr>
         ))}
       </TBody>

@@ -1,0 +1,2 @@
+// What the rest of the app may use from the changes feature (comparing two revisions).
+export { ChangesView, type ChangesViewProps } from './components/changes-view';
