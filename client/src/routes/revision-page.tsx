@@ -13,6 +13,7 @@ import { useSignedInUser } from './guards';
 import { positiveId } from './route-ids';
 import { rememberLedgerSearch, useRevisionSelection } from './revision-selection';
 import { NotFoundPage } from './not-found-page';
+import { RevisionActions } from './revision-actions';
 
 /**
  * A revision's results: the overview (bands, histogram, most critical), the member
@@ -58,6 +59,7 @@ function RevisionResults({ projectId, revisionId }: { projectId: number; revisio
             </>
           )
         }
+        actions={r && <RevisionActions projectId={projectId} revision={r} />}
       />
       {revision.isPending && <LoadingState label="Loading the revision…" />}
       {revision.isError && <ErrorState title="This revision could not be opened" error={revision.error} onRetry={() => void revision.refetch()} />}
