@@ -1,0 +1,369 @@
+/**
+ * Import speed and memory against web-ifc's bare floor, for synthetic models of 1,000, 5,000
+ * and 20,000 members (the 20,000-member file is over 100 MB; --big adds 50,000 members,
+ * about 380 MB). Run: npm run bench:import [-- --big] [-- --sizes=1000,5000] [-- --repeat=N]
+ * [-- --profile] (CPU profiles of the in-process runs into .data/bench/profiles/).
+ *
+ * Every measurement runs in a fresh child process, so the numbers do not include this
+ * script's own memory. Generated models are cached in .data/bench/ keyed by the generator's
+ * source, so only the first run pays for generation.
+ */
+import { spawn } from 'node:child_process';
+import { createHash } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, readdirSync, renameSync, statSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { serialize } from 'node:v8';
+import {
+  BENCH_DIR, ROOT, cpuMsOf, firstProjectId, median, fmtMb, fmtMs, fmtSpread, peakRssOf, resetPeakRss, rssOf, sampleRss, signIn,
+  spread, startAppProcess, startThrowawayDb, table, uploadFile, waitForRevision, writeResults, type Spread,
+} from './lib/bench-support.ts';
+
+const SELF = fileURLToPath(import.meta.url);
+const arg = (name: string) => process.argv.find((a) => a.startsWith(`--${name}=`))?.split('=')[1];
+const flag = (name: string) => process.argv.includes(`--${name}`);
+
+export const BARE_DEFINITION =
+  'bare = in a fresh process with the wasm already initialised and the file already in memory: web-ifc OpenModel, ' +
+  'then GetLineIDsWithType for IfcMember, IfcBeam, IfcColumn, IfcPlate (with subtypes), IfcMechanicalFastener and IfcFastener, ' +
+  'then GetLine (not flattened, no inverse attributes) of every id listed. It is the least any import must do.';
+export const WHOLE_DEFINITION =
+  'whole = through the API of the real app (child process, throwaway MariaDB): from the start of the multipart upload ' +
+  '(streamed from disk over loopback) until GET /revisions/:id says done — upload, hashing, file store, job claim, ' +
+  'worker thread (read, extract, check), hand-over to the main thread, and storing members, forces and results in one transaction.';
+
+// ---------------------------------------------------------------- child modes
+
+async function childGenerate(n: number, out: string): Promise<void> {
+  const { makeSyntheticModel } = await import('../samples/make-samples.ts');
+  const t0 = performance.now();
+  const bytes = await makeSyntheticModel(n);
+  const ms = performance.now() - t0;
+  writeFileSync(`${out}.part`, bytes);
+  renameSync(`${out}.part`, out);
+  report({ ms, bytes: bytes.length });
+}
+
+async function childBare(file: string): Promise<void> {
+  const W = await import('web-ifc');
+  const bytes = new Uint8Array(readFileSync(file));
+  const api = new W.IfcAPI();
+  await api.Init(undefined, true); // as the app does: single-threaded wasm
+  api.SetLogLevel(W.LogLevel.LOG_LEVEL_OFF);
+  const cpu0 = process.cpuUsage();
+  const t0 = performance.now();
+  const modelID = api.OpenModel(bytes, { COORDINATE_TO_ORIGIN: false });
+  const t1 = performance.now();
+  let lines = 0;
+  for (const type of [W.IFCMEMBER, W.IFCBEAM, W.IFCCOLUMN, W.IFCPLATE, W.IFCMECHANICALFASTENER, W.IFCFASTENER]) {
+    const ids = api.GetLineIDsWithType(modelID, type, true);
+    for (let i = 0; i < ids.size(); i++) {
+      if (api.GetLine(modelID, ids.get(i))) lines++;
+    }
+  }
+  const t2 = performance.now();
+  const cpu = process.cpuUsage(cpu0);
+  api.CloseModel(modelID);
+  report({ openMs: t1 - t0, listMs: t2 - t1, totalMs: t2 - t0, cpuMs: (cpu.user + cpu.system) / 1000, lines, peakRss: peakRssOf(process.pid) });
+}
+
+/**
+ * The import task (runImportTask, the worker's code) in this process's main thread, then the
+ * hand-over clone and storeOutcome into the DB from the environment; heap sampled every 50 ms.
+ */
+async function childDirect(file: string): Promise<void> {
+  const { runImportTask } = await import('../../server/imports/run-import-task.ts');
+  const { getIfcApi } = await import('../../server/ifc/ifc-api.ts');
+  const { storeOutcome } = await import('../../server/imports/store-outcome.ts');
+  const { loadConfig } = await import('../../server/config/config.ts');
+  const { createDatabase } = await import('../../server/db/database.ts');
+  const { ProjectModel } = await import('../../server/db/models/project.ts');
+  const { IfcModelModel } = await import('../../server/db/models/ifc-model.ts');
+  const { RevisionModel } = await import('../../server/db/models/revision.ts');
+
+  const sequelize = createDatabase(loadConfig(process.env).db);
+  const project = await ProjectModel.findOne({ order: [['id', 'ASC']] });
+  if (!project) throw new Error('no project in the benchmark database');
+  const model = await IfcModelModel.create({ projectId: project.id, name: `direct ${path.basename(file)} ${Date.now()}` });
+  const revision = await RevisionModel.create({
+    modelId: model.id, number: 1, fileName: path.basename(file), fileSize: statSync(file).size, sha256: 'bench', storageKey: 'bench',
+    uploadedById: null, standard: 'as4100', status: 'checking', claimedBy: 'bench-direct',
+  });
+  await getIfcApi(); // wasm init is paid once per worker, not per import
+
+  let heapPeak = 0;
+  let externalPeak = 0;
+  let rssPeak = 0;
+  const take = () => {
+    const m = process.memoryUsage();
+    heapPeak = Math.max(heapPeak, m.heapUsed);
+    externalPeak = Math.max(externalPeak, m.external);
+    rssPeak = Math.max(rssPeak, m.rss);
+  };
+  const timer = setInterval(take, 50);
+  const rssBefore = process.memoryUsage().rss;
+  const t0 = performance.now();
+  const outcome = await runImportTask({ filePath: file, kind: 'ifc', standard: 'as4100', defaultGrade: project.defaultGrade, inflateLimitBytes: 1e12 });
+  const taskMs = performance.now() - t0;
+  take();
+  if (!outcome.ok) throw new Error(`import failed: ${outcome.failure.message}`);
+  let t = performance.now();
+  // The worker hands its outcome over as a structured clone; v8.serialize is the same format.
+  const cloneBytes = serialize({ ...outcome, geometry: null }).length;
+  const cloneMs = performance.now() - t;
+  t = performance.now();
+  const kept = await storeOutcome(sequelize, revision.id, 'bench-direct', 'as4100', outcome.summary, outcome.members);
+  const storeMs = performance.now() - t;
+  clearInterval(timer);
+  take();
+  if (!kept) throw new Error('storeOutcome did not keep the result');
+  const members = outcome.members;
+  const detailBytes = members.reduce((n, m) => n + JSON.stringify(m.detail).length, 0);
+  const resultBytes = members.reduce((n, m) => n + (m.result ? JSON.stringify(m.result).length : 0), 0);
+  const geometry = (outcome as { geometry?: Uint8Array | null }).geometry;
+  await sequelize.close();
+  report({
+    ms: { ...(outcome.summary.timings ?? {}), task: taskMs, clone: cloneMs, store: storeMs },
+    members: members.length, heapPeak, externalPeak, rssPeak, rssBefore, cloneBytes, detailBytes, resultBytes,
+    geometryBytes: geometry?.length ?? null, vmHwm: peakRssOf(process.pid),
+  });
+}
+
+/**
+ * Seeds a revision for the API benchmark: read, extract, check and store (storeOutcome) in this
+ * process, without display geometry, into a given project of the DB from the environment.
+ */
+async function childSeed(file: string, projectId: number): Promise<void> {
+  const { readUploadBytes } = await import('../../server/imports/read-upload-bytes.ts');
+  const { readIfcModel } = await import('../../server/ifc/read-model.ts');
+  const { checkModel } = await import('../../server/imports/check-members.ts');
+  const { summarise } = await import('../../server/imports/summarise.ts');
+  const { storeOutcome } = await import('../../server/imports/store-outcome.ts');
+  const { loadConfig } = await import('../../server/config/config.ts');
+  const { createDatabase } = await import('../../server/db/database.ts');
+  const { ProjectModel } = await import('../../server/db/models/project.ts');
+  const { IfcModelModel } = await import('../../server/db/models/ifc-model.ts');
+  const { RevisionModel } = await import('../../server/db/models/revision.ts');
+  const sequelize = createDatabase(loadConfig(process.env).db);
+  const project = await ProjectModel.findByPk(projectId);
+  if (!project) throw new Error(`no project ${projectId}`);
+  const model = await IfcModelModel.create({ projectId, name: `api bench ${path.basename(file)}` });
+  const revision = await RevisionModel.create({
+    modelId: model.id, number: 1, fileName: path.basename(file), fileSize: statSync(file).size, sha256: 'bench', storageKey: 'bench',
+    uploadedById: null, standard: project.standard, status: 'checking', claimedBy: 'bench-seed',
+  });
+  const t0 = performance.now();
+  const extracted = await readIfcModel(await readUploadBytes(file, 'ifc', 1e12));
+  const members = checkModel(extracted, { standard: project.standard, defaultGrade: project.defaultGrade });
+  const kept = await storeOutcome(sequelize, revision.id, 'bench-seed', project.standard, summarise(extracted, members, {}), members);
+  if (!kept) throw new Error('storeOutcome did not keep the result');
+  await sequelize.close();
+  report({ revisionId: revision.id, ms: performance.now() - t0 });
+}
+
+/** Runs the seed step in a child process (see childSeed). */
+export function seedRevision(file: string, projectId: number, dbEnv: Record<string, string>): Promise<{ revisionId: number; ms: number }> {
+  return runChild('seed', [`--file=${file}`, `--project=${projectId}`], dbEnv, ['--max-old-space-size=4096']);
+}
+
+function report(data: unknown): void {
+  process.stdout.write(`RESULT ${JSON.stringify(data)}\n`);
+}
+
+// ---------------------------------------------------------------- parent side
+
+/** Runs this file in a child mode; returns its RESULT line. */
+function runChild<T>(mode: string, args: string[], env: Record<string, string> = {}, nodeArgs: string[] = []): Promise<T> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', SELF, `--child=${mode}`, ...args], {
+      env: { ...process.env, ...env },
+      stdio: ['ignore', 'pipe', 'inherit'],
+      cwd: ROOT,
+    });
+    let out = '';
+    child.stdout.on('data', (d) => (out += d));
+    child.on('exit', (code) => {
+      const line = out.split('\n').find((l) => l.startsWith('RESULT '));
+      if (code === 0 && line) resolve(JSON.parse(line.slice(7)) as T);
+      else reject(new Error(`child ${mode} exited with ${code}: ${out.slice(-2000)}`));
+    });
+  });
+}
+
+function generatorHash(): string {
+  const h = createHash('sha256');
+  const dir = path.join(ROOT, 'scripts/samples');
+  for (const f of readdirSync(dir).filter((f) => f.endsWith('.ts')).sort()) h.update(f).update(readFileSync(path.join(dir, f)));
+  h.update(JSON.parse(readFileSync(path.join(ROOT, 'node_modules/web-ifc/package.json'), 'utf8')).version);
+  return h.digest('hex').slice(0, 10);
+}
+
+/** Synthetic models of the given sizes, generated once (in a child process) and cached in .data/bench/. */
+export async function ensureModels(sizes: number[]): Promise<Map<number, { file: string; gen: ImportRow['generation'] }>> {
+  mkdirSync(BENCH_DIR, { recursive: true });
+  const hash = generatorHash();
+  const files = new Map<number, { file: string; gen: ImportRow['generation'] }>();
+  for (const n of sizes) {
+    const file = path.join(BENCH_DIR, `synthetic-${n}-${hash}.ifc`);
+    if (existsSync(file)) {
+      files.set(n, { file, gen: { ms: null, cached: true } });
+      console.log(`model ${n} members: cached ${path.relative(ROOT, file)} (${fmtMb(statSync(file).size)})`);
+    } else {
+      const g = await runChild<{ ms: number; bytes: number }>('generate', [`--n=${n}`, `--out=${file}`], {}, ['--max-old-space-size=12000']);
+      files.set(n, { file, gen: { ms: g.ms, cached: false } });
+      console.log(`model ${n} members: generated in ${fmtMs(g.ms)} (${fmtMb(g.bytes)}) — generation is not part of any number below`);
+    }
+  }
+  return files;
+}
+
+export interface ImportRow {
+  members: number;
+  fileBytes: number;
+  generation: { ms: number | null; cached: boolean };
+  bare: { total: Spread; cpu: Spread; open: Spread; list: Spread; lines: number };
+  whole: { ms: Spread; cpu: Spread; runs: number[]; worker: { readAndExtractMs: Spread; checkMs: Spread; geometryMs: Spread }; peakRss: Spread; peakRssHwm: Spread; rssBefore: Spread };
+  ratio: { wholeOverBare: number; cpuOverBareCpu: number; peakRssOverFile: number };
+  direct?: { ms: Record<string, number>; heapPeak: number; externalPeak: number; rssPeak: number; rssBefore: number; cloneBytes: number; detailBytes: number; resultBytes: number; geometryBytes: number | null };
+}
+
+async function main(): Promise<void> {
+  const sizes = (arg('sizes') ?? '1000,5000,20000').split(',').map(Number).filter((n) => n > 0);
+  if (flag('big') && !sizes.includes(50_000)) sizes.push(50_000);
+  // Imports of 20,000 members and more take minutes on this machine: one each unless asked.
+  const repeatFor = (n: number) => Number(arg('repeat') ?? (n >= 20_000 ? 1 : 3));
+  const bareRepeat = Number(arg('bare-repeat') ?? 3);
+  const profile = flag('profile');
+  mkdirSync(BENCH_DIR, { recursive: true });
+  const loadStart = os.loadavg();
+  console.log(`Import benchmark — ${os.cpus().length} cores, ${(os.totalmem() / 1024 ** 3).toFixed(0)} GiB, node ${process.version}; sizes ${sizes.join(', ')}; whole imports per size ${sizes.map(repeatFor).join('/')}, ${bareRepeat} bare reads per size.`);
+
+  // 1. Models (cached).
+  const files = await ensureModels(sizes);
+
+  // 2. Bare floor.
+  const bare = new Map<number, ImportRow['bare']>();
+  for (const n of sizes) {
+    const runs: { openMs: number; listMs: number; totalMs: number; cpuMs: number; lines: number }[] = [];
+    for (let i = 0; i < bareRepeat; i++) runs.push(await runChild('bare', [`--file=${files.get(n)!.file}`]));
+    bare.set(n, { total: spread(runs.map((r) => r.totalMs)), cpu: spread(runs.map((r) => r.cpuMs)), open: spread(runs.map((r) => r.openMs)), list: spread(runs.map((r) => r.listMs)), lines: runs[0].lines });
+    console.log(`bare ${n}: ${fmtSpread(bare.get(n)!.total, fmtMs)} (CPU ${fmtMs(bare.get(n)!.cpu.median)}; open ${fmtMs(bare.get(n)!.open.median)}, list ${runs[0].lines} lines ${fmtMs(bare.get(n)!.list.median)})`);
+  }
+
+  // 3. Whole imports through the real app.
+  const db = await startThrowawayDb();
+  const rows: ImportRow[] = [];
+  try {
+    const app = await startAppProcess(db.env, { IMPORT_WORKERS: '1', UPLOAD_LIMIT_MB: '2000' });
+    try {
+      const session = await signIn(app.url);
+      const projectId = await firstProjectId(app.url, session);
+      // A cold worker (thread start, TypeScript loader, wasm init) is paid once per idle pool; measure it apart.
+      const coldStart = performance.now();
+      const warm = await uploadFile(app.url, session, projectId, path.join(ROOT, 'samples/kestrel-yard-shed.ifc'), 'bench warm-up');
+      await waitForRevision(app.url, session, projectId, warm.revisionId);
+      console.log(`warm-up import of the 26-member sample (cold worker): ${fmtMs(performance.now() - coldStart)}`);
+
+      for (const n of sizes) {
+        const { file } = files.get(n)!;
+        const fileBytes = statSync(file).size;
+        const runs: { ms: number; cpu: number; rex: number; check: number; geometry: number; peak: number; hwm: number; before: number }[] = [];
+        for (let i = 0; i < repeatFor(n); i++) {
+          const before = rssOf(app.pid);
+          const hwmOk = resetPeakRss(app.pid);
+          const sampler = sampleRss(app.pid, 50);
+          const cpu0 = cpuMsOf(app.pid);
+          const t0 = performance.now();
+          const up = await uploadFile(app.url, session, projectId, file, `bench ${n} #${i + 1} ${Date.now()}`);
+          const timeline: string[] = [`uploaded ${fmtMs(performance.now() - t0)}`];
+          const state = await waitForRevision(app.url, session, projectId, up.revisionId, 50, (st, p) => timeline.push(`${st} ${Math.round(p * 100)}% @${fmtMs(performance.now() - t0)}`));
+          const ms = performance.now() - t0;
+          const cpu = cpuMsOf(app.pid) - cpu0;
+          const { peak } = sampler.stop();
+          if (state.status !== 'done') throw new Error(`import of ${n} members failed: ${state.failure?.error}: ${state.failure?.message}`);
+          const tm = state.summary?.timings ?? {};
+          runs.push({ ms, cpu, rex: tm.readAndExtractMs ?? NaN, check: tm.checkMs ?? NaN, geometry: tm.geometryMs ?? NaN, peak, hwm: hwmOk ? peakRssOf(app.pid) : NaN, before });
+          console.log(`whole ${n} #${i + 1}: ${fmtMs(ms)}, app CPU ${fmtMs(cpu)} (worker read+extract ${fmtMs(tm.readAndExtractMs ?? NaN)}, check ${fmtMs(tm.checkMs ?? NaN)}${tm.geometryMs !== undefined ? `, display geometry ${fmtMs(tm.geometryMs)}` : ''}), app RSS ${fmtMb(before)} → peak ${fmtMb(peak)} (VmHWM ${fmtMb(runs.at(-1)!.hwm)})`);
+          if (flag('timeline')) console.log(`  ${timeline.join(' → ')}`);
+        }
+        const b = bare.get(n)!;
+        const whole = spread(runs.map((r) => r.ms));
+        const peakRss = spread(runs.map((r) => r.peak));
+        rows.push({
+          members: n, fileBytes, generation: files.get(n)!.gen, bare: b,
+          whole: {
+            ms: whole, cpu: spread(runs.map((r) => r.cpu)), runs: runs.map((r) => Math.round(r.ms)),
+            worker: { readAndExtractMs: spread(runs.map((r) => r.rex)), checkMs: spread(runs.map((r) => r.check)), geometryMs: spread(runs.map((r) => r.geometry)) },
+            peakRss, peakRssHwm: spread(runs.map((r) => r.hwm)), rssBefore: spread(runs.map((r) => r.before)),
+          },
+          ratio: { wholeOverBare: whole.median / b.total.median, cpuOverBareCpu: median(runs.map((r) => r.cpu)) / b.cpu.median, peakRssOverFile: peakRss.max / fileBytes },
+        });
+      }
+    } finally {
+      await app.stop();
+    }
+
+    // 4. In-process runs: phase breakdown, heap, hand-over size (and CPU profiles with --profile).
+    const profDir = path.join(BENCH_DIR, 'profiles');
+    for (const row of rows) {
+      const nodeArgs = ['--max-old-space-size=4096', ...(profile ? ['--cpu-prof', `--cpu-prof-dir=${profDir}`, `--cpu-prof-name=import-${row.members}.cpuprofile`] : [])];
+      row.direct = await runChild('direct', [`--file=${files.get(row.members)!.file}`], db.env, nodeArgs);
+      const d = row.direct!;
+      console.log(`in-process ${row.members}: ${Object.entries(d.ms).map(([k, v]) => `${k} ${fmtMs(v)}`).join(', ')}; heap peak ${fmtMb(d.heapPeak)}, RSS peak ${fmtMb(d.rssPeak)}, hand-over ${fmtMb(d.cloneBytes)}`);
+    }
+    if (profile) console.log(`CPU profiles in ${path.relative(ROOT, profDir)}/`);
+  } finally {
+    await db.stop();
+  }
+
+  // 5. Tables.
+  console.log(`\n${BARE_DEFINITION}\n${WHOLE_DEFINITION}\nMedians of ${sizes.map(repeatFor).join('/')} imports per size (min–max in brackets).\n`);
+  console.log(importTable(rows));
+  console.log('\nIn-process phases (one run each; same code as the worker, in the main thread; heap = V8 heapUsed peak, sampled every 50 ms):\n');
+  console.log(phaseTable(rows));
+  const file = writeResults('import', { date: new Date().toISOString(), loadAverage: { start: loadStart, end: os.loadavg() }, repeat: sizes.map(repeatFor).join('/'), bareRepeat, bareDefinition: BARE_DEFINITION, wholeDefinition: WHOLE_DEFINITION, rows });
+  console.log(`\nresults: ${path.relative(ROOT, file)}`);
+}
+
+export function importTable(rows: ImportRow[]): string {
+  return table(
+    ['members', 'file', 'bare', 'whole import', 'whole / bare', 'CPU: bare → whole (app)', 'CPU ratio', 'peak RSS (app)', 'peak RSS / file'],
+    rows.map((r) => [
+      r.members.toLocaleString('en'), fmtMb(r.fileBytes), fmtSpread(r.bare.total, fmtMs), fmtSpread(r.whole.ms, fmtMs),
+      `${r.ratio.wholeOverBare.toFixed(2)}${r.members >= 20_000 ? (r.ratio.wholeOverBare <= 3 ? ' (≤ 3 ✓)' : ' (target ≤ 3 ✗)') : ''}`,
+      `${fmtMs(r.bare.cpu.median)} → ${fmtMs(r.whole.cpu.median)}`, r.ratio.cpuOverBareCpu.toFixed(2),
+      fmtSpread(r.whole.peakRss, fmtMb), `${r.ratio.peakRssOverFile.toFixed(2)} ${r.ratio.peakRssOverFile <= 8 ? '(≤ 8 ✓)' : '(target ≤ 8 ✗)'}`,
+    ]),
+  );
+}
+
+export function phaseTable(rows: ImportRow[]): string {
+  const opt = (v: number | undefined) => (v === undefined ? '—' : fmtMs(v));
+  return table(
+    ['members', 'read + extract', 'check', 'display geometry', 'task total', 'hand-over clone', 'store (MariaDB)', 'heap peak', 'RSS peak', 'hand-over size', 'detail JSON', 'result JSON', 'geometry file'],
+    rows.filter((r) => r.direct).map((r) => {
+      const d = r.direct!;
+      return [
+        r.members.toLocaleString('en'), opt(d.ms.readAndExtractMs), opt(d.ms.checkMs), opt(d.ms.geometryMs), fmtMs(d.ms.task), fmtMs(d.ms.clone), fmtMs(d.ms.store),
+        fmtMb(d.heapPeak), fmtMb(d.rssPeak), fmtMb(d.cloneBytes), fmtMb(d.detailBytes), fmtMb(d.resultBytes), d.geometryBytes === null ? '—' : fmtMb(d.geometryBytes),
+      ];
+    }),
+  );
+}
+
+const child = arg('child');
+if (process.argv[1] && path.resolve(process.argv[1]) === SELF) {
+  const run = child === 'generate' ? childGenerate(Number(arg('n')), arg('out')!)
+    : child === 'bare' ? childBare(arg('file')!)
+    : child === 'direct' ? childDirect(arg('file')!)
+    : child === 'seed' ? childSeed(arg('file')!, Number(arg('project')))
+    : main();
+  run.then(
+    () => process.exit(0),
+    (err) => {
+      console.error(err instanceof Error ? err.stack : err);
+      process.exit(1);
+    },
+  );
+}
