@@ -58,7 +58,8 @@ export function ModelCanvas(props: ModelCanvasProps) {
       <directionalLight position={[-0.6, 0.2, -0.8]} intensity={0.12 * Math.PI} />
       <Layers {...props} />
       <AxisLines model={props.model} entries={props.main} paintVersion={props.paintVersion} clip={props.clip} width={2.5} renderOrder={5} />
-      <AxisLines model={props.model} entries={props.over} paintVersion={props.paintVersion} clip={props.clip} width={6} colour={OVER_EDGE} renderOrder={4} />
+      <AxisLines model={props.model} entries={props.over} paintVersion={props.paintVersion} clip={props.clip} width={7.5} colour={OVER_EDGE} renderOrder={4} />
+      <AxisLines model={props.model} entries={props.over} paintVersion={props.paintVersion} clip={props.clip} width={3.5} renderOrder={6} />
       <OrbitControls makeDefault enableDamping={false} />
       <CameraDriver request={props.camera} />
       <Picker pickable={props.pickable} model={props.model} clip={props.clip} onHover={props.onHover} onPick={props.onPick} />
