@@ -16,7 +16,7 @@ interface Account {
 }
 
 const ACCOUNTS: Account[] = [
-  { email: 'admin@demo.gaugeline.test', role: 'admin', links: ['Projects', 'Account', 'People', 'Project access'], canCreateProjects: true },
+  { email: 'admin@demo.gaugeline.test', role: 'admin', links: ['Projects', 'Account', 'People', 'Project access', 'Outgoing mail'], canCreateProjects: true },
   { email: 'engineer@demo.gaugeline.test', role: 'engineer', links: ['Projects', 'Account'], canCreateProjects: true },
   { email: 'architect@demo.gaugeline.test', role: 'viewer', links: ['Projects', 'Account'], canCreateProjects: false },
 ];

@@ -47,7 +47,7 @@ export function ChangesView({ projectId, revisionId, withRevisionId, memberHref 
     <div className="flex flex-col gap-5">
       <div className="flex flex-wrap items-start justify-between gap-3">
         <p className="max-w-prose text-small text-muted">
-          Revision {before} → revision {after}: {formatCount(c.matchedByGlobalId)} {c.matchedByGlobalId === 1 ? 'member' : 'members'} found in both by GlobalId
+          {formatCount(c.matchedByGlobalId)} {c.matchedByGlobalId === 1 ? 'member' : 'members'} found in both revisions by GlobalId
           {c.matchedByTag > 0 && `, ${formatCount(c.matchedByTag)} more by tag`}; {formatCount(c.changes.length)} changed.
         </p>
         <a href={comparisonCsvHref(projectId, revisionId, c.before.id)} download className={buttonClass('secondary', 'sm', 'no-print')}>
@@ -158,7 +158,7 @@ function ChangesTable({
           <Th>Tag</Th>
           <Th>Name</Th>
           <Th>What changed</Th>
-          <Th>Section</Th>
+          <Th>Section and grade</Th>
           <Th numeric>Design force</Th>
           <Th numeric>Utilisation</Th>
           <Th>Band</Th>
@@ -171,7 +171,8 @@ function ChangesTable({
           const force = (m: typeof a) => (m?.designForceN == null ? dash : <Figure measure={units.force(m.designForceN)} />);
           const util = (m: typeof a) => (m ? <UtilisationFigure utilisation={m.utilisation} band={m.band} /> : dash);
           const band = (m: typeof a) => (m ? <BandTag band={m.band} /> : dash);
-          const section = (m: typeof a) => (m ? <span>{m.profile ?? 'no profile'}{m.grade ? <span className="text-muted"> · {m.grade}</span> : null}</span> : dash);
+          const profile = (m: typeof a) => (m ? (m.profile ?? <span className="text-muted">no profile</span>) : dash);
+          const grade = (m: typeof a) => (m ? (m.grade ?? 'no grade') : dash);
           const only = !a || !b;
           return (
             <Tr key={c.globalId} className={c.kinds.includes('removed') ? 'text-muted' : undefined}>
@@ -198,7 +199,10 @@ function ChangesTable({
                 </ul>
               </Td>
               <Td>
-                <BeforeAfter before={section(b)} after={section(a)} same={!only && b.profile === a.profile && b.grade === a.grade} />
+                <BeforeAfter before={profile(b)} after={profile(a)} same={!only && b.profile === a.profile} />
+                <span className="block text-fine text-muted">
+                  <BeforeAfter before={grade(b)} after={grade(a)} same={!only && b.grade === a.grade} />
+                </span>
               </Td>
               <Td numeric>
                 <BeforeAfter before={force(b)} after={force(a)} same={!only && !c.kinds.includes('force-changed')} />

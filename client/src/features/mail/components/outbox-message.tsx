@@ -5,6 +5,9 @@ import { Badge, Button, ErrorState, LoadingState, Notice } from '../../../ui';
 import { useOutboxMessage, useRetryMail } from '../api/use-outbox';
 import { canRetry, kindLabel, STATUS_TONES, statusLabel } from './mail-words';
 
+/** One-time links (invitations, password resets) belong to their addressee: not shown on screen. */
+const hideLinks = (text: string) => text.replace(/(#token=)[A-Za-z0-9_-]+/g, '$1(hidden)');
+
 /** One message as it was (or will be) sent: addressees, state, attachments and the text. */
 export function OutboxMessage({ mailId }: { mailId: number }) {
   const message = useOutboxMessage(mailId);
@@ -80,8 +83,9 @@ export function OutboxMessage({ mailId }: { mailId: number }) {
           Text of the message
         </h2>
         <pre className="max-h-[36rem] overflow-auto rounded-card border border-rule bg-paper px-4 py-3 font-sans text-small break-words whitespace-pre-wrap text-ink">
-          {m.text ?? ''}
+          {hideLinks(m.text ?? '')}
         </pre>
+        <p className="text-fine text-muted">One-time password links are hidden here; only the addressee can use them.</p>
       </section>
     </div>
   );

@@ -72,7 +72,7 @@ export function SendCriticalForm({ projectId, revisionId, revisionNumber, curren
   if (answer) {
     return (
       <div className="flex flex-col gap-4">
-        <Notice tone="success" title={`${answer.members} ${answer.members === 1 ? 'member' : 'members'} on the way`}>
+        <Notice tone="success" title="Message queued">
           {answer.message}
         </Notice>
         <div className="flex flex-wrap gap-2">
@@ -127,7 +127,7 @@ export function SendCriticalForm({ projectId, revisionId, revisionNumber, curren
           label="Other addresses"
           optional
           multiline
-          rows={5}
+          rows={3}
           spellCheck={false}
           autoCapitalize="none"
           description="One per line, or separated by commas. For people outside Gaugeline, such as a fabricator or the site team."
@@ -135,7 +135,7 @@ export function SendCriticalForm({ projectId, revisionId, revisionNumber, curren
           {...form.field('recipients')}
         />
       </div>
-      <TextField label="Message" optional multiline rows={4} description="Goes at the top of the e-mail, above the list and the cautions." {...form.field('message')} />
+      <TextField label="Message" optional multiline rows={3} description="Goes at the top of the e-mail, above the list and the cautions." {...form.field('message')} />
       <div className="grid items-start gap-5 md:grid-cols-2">
         <ChoiceGroup legend="Attach" error={attachField.error}>
           <Checkbox

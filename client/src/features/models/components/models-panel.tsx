@@ -123,7 +123,7 @@ function RevisionHistory({ projectId, model }: { projectId: number; model: IfcMo
             <Td className="text-right whitespace-nowrap">
               {r.status === 'done' && revisions.data.some((x) => x.number < r.number && x.status === 'done') && (
                 <Link to={paths.revisionChanges(projectId, r.id)}>
-                  Compare with previous<span className="sr-only"> revision: what changed in revision {r.number}</span>
+                  Changes<span className="sr-only"> in revision {r.number} since the previous one</span>
                 </Link>
               )}
             </Td>
