@@ -57,7 +57,7 @@ export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {})
   const opened = openModel(api, bytes);
   try {
     progress('reading', 1);
-    const ctx = new ModelContext(api, opened.modelID, opened.schema);
+    const ctx = new ModelContext(api, opened.modelID, opened.schema, options.cacheGeneration);
     const projectId = ctx.idsOfType(W.IFCPROJECT)[0];
     if (projectId === undefined) throw new IfcReadError(opened.truncated ? 'ifc.truncated' : 'ifc.no-project');
     ctx.units = readUnits(ctx, projectId);
@@ -85,7 +85,11 @@ export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {})
     for (const id of fasteners) {
       const b = extractBoltGroup(ctx, ix, id);
       if (b) bolts.push(b);
-      done++;
+      // Bolt groups can outnumber members; keep reporting so the progress bar does not stall.
+      if (++done % 200 === 0) {
+        progress('extracting', done / total);
+        await yieldToLoop();
+      }
     }
     associateBolts(ctx, ix, works, bolts);
     const analysisMembers = extractAnalysisMembers(ctx, ix);

@@ -23,6 +23,8 @@ export interface ForcePsetSpec {
 export interface ReadOptions {
   progress?: ProgressCallback;
   forcePsetNames?: ForcePsetSpec[];
+  /** Lines per generation of the bounded line cache (tests make it tiny to exercise eviction). */
+  cacheGeneration?: number;
 }
 
 export interface UnitsInfo {
