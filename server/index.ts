@@ -56,6 +56,8 @@ export async function startServer(env: Record<string, string | undefined> = proc
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
   const url = `http://${config.host}:${port}`;
+  // With no PUBLIC_URL, links in e-mails point at where this server really listens (PORT=0 picks a port).
+  if (!env.PUBLIC_URL) config.publicUrl = url;
   imports.start();
   mail.start();
   mail.kick();

@@ -129,6 +129,12 @@ const ROUTES: RouteCase[] = [
   },
   { route: `GET ${REV}/exports/:format`, expect: writers(200) },
   { route: `GET ${REV}/geometry`, expect: readers },
+  { route: `GET ${REV}/comparison`, path: (i) => `/api/projects/${i.projectId}/revisions/${i.revisionId}/comparison?with=${i.revisionId}`, expect: readers },
+  {
+    route: `POST ${REV}/send-critical`,
+    body: () => ({ recipients: ['route.test@example.test'], minUtilisation: 0, attach: ['csv'] }),
+    expect: writers(202),
+  },
 
   // The built client: any other GET serves the app shell (the client decides what to show).
   { route: 'GET /{*splat}', expect: all(200) },

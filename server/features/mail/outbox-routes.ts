@@ -19,7 +19,8 @@ function present(m: MailMessageModel, withText = false): OutboxEntry {
     sentAt: m.sentAt ? m.sentAt.toISOString() : null,
     createdAt: m.createdAt.toISOString(),
     attachments: m.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType })),
-    ...(withText ? { text: m.textBody } : {}),
+    // One-time links are for their addressee only: an admin reading the outbox must not be able to use them.
+    ...(withText ? { text: m.textBody.replace(/(#token=)[A-Za-z0-9_-]+/g, '$1(hidden)') } : {}),
   };
 }
 

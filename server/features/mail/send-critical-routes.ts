@@ -17,7 +17,7 @@ export function sendCriticalRoutes(config: AppConfig, mail: MailService): Router
     const revision = await findRevision(project.id, parseId(req.params.revisionId, 'That revision'));
     const body = parseBody(sendCriticalRequestSchema, req.body);
     const sent = await sendCriticalMembers(config, mail, user, project, revision, body);
-    res.status(202).json({ ...sent, message: `${sent.members} member(s) are on their way; the outbox shows when the message has gone.` });
+    res.status(202).json({ ...sent, message: `${sent.members} member(s) are queued for sending. If the mail service is down, the message waits and is tried again; nothing is lost.` });
   });
   return router;
 }
