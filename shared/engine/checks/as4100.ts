@@ -17,7 +17,7 @@ import { AS_FUF, coreArea, normaliseBoltGrade, shankArea } from './bolt-data.ts'
 export function checkAs4100(input: MemberCheckInput): CheckResult {
   const rec = new Recorder();
   // Every result names the edition it follows, so reports and exports never have to guess.
-  rec.assume('edition', 'AS 4100-1998 incl. Amdt 1:2012', 'clause numbers of that edition; believed unchanged in AS 4100:2020 (from memory)');
+  rec.assume('edition', 'AS 4100-1998 incl. Amdt 1:2012; block shear in the AS 4100:2020 form', 'clause numbers of that edition; believed unchanged in AS 4100:2020 (from memory)');
   const m = prepareMember(input, rec);
   const { fy, fu } = m.steel;
   const An = areaSteps(m, rec, 'AS 4100 Cl. 9.1.10 (from memory)');
