@@ -180,9 +180,12 @@ describe('project isolation', () => {
     }
   });
 
+  // Reads only, and one export format: the point is that these answer 200, not the formats.
+  const READS = PROBES.filter((p) => p.method === 'get' && !/workbook|IFC export/.test(p.name));
+
   it('members still reach their own project (the probes above are not refused for every id)', async () => {
     for (const side of [a, b]) {
-      for (const probe of PROBES.filter((p) => p.method === 'get')) {
+      for (const probe of READS) {
         const res = await send(side.engineer, probe, side);
         expect(res.status, `${probe.name}: ${JSON.stringify(res.body)}`).toBe(200);
       }
@@ -191,7 +194,7 @@ describe('project isolation', () => {
 
   it('an admin reads and exports every project', async () => {
     for (const side of [a, b]) {
-      for (const probe of PROBES.filter((p) => p.method === 'get')) {
+      for (const probe of READS) {
         const res = await send(admin, probe, side);
         expect(res.status, `${probe.name}: ${JSON.stringify(res.body)}`).toBe(200);
       }

@@ -22,7 +22,7 @@ const corpus = existsSync(CORPUS_DIR) ? readdirSync(CORPUS_DIR).filter((f) => f.
 if (!corpus.length) console.warn(`IFC corpus not found in ${CORPUS_DIR}; only the samples are fuzzed.`);
 
 /** Large files read slowly: they get the mutations most likely to reach deep into the reader. */
-const BIG_FILE_MUTATIONS = ['cut short', 'flipped bytes', 'references rewired'];
+const BIG_FILE_MUTATIONS = ['flipped bytes', 'references rewired'];
 const isBig = (size: number) => size > 1_000_000;
 
 // ---------- a small pool of reader threads with a time limit per read ----------
