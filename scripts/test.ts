@@ -2,27 +2,17 @@
 // vitest suite (unit, ifc, api, e2e) against a throwaway MariaDB on a free port.
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
-import { createServer } from 'node:net';
 import { randomBytes } from 'node:crypto';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { startMariaInstance, ensureDatabase } from './db/mariadb-instance';
 import { buildClientIfStale } from './lib/build-client';
+import { freePort } from './lib/free-port';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 process.chdir(root);
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as { port: number };
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 function step(title: string, command: string, args: string[], env: NodeJS.ProcessEnv = process.env): number {
   console.log(`\n== ${title}`);

@@ -3,20 +3,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { createServer } from 'node:net';
 import request from 'supertest';
 import { startMariaInstance, ensureDatabase, type MariaInstance } from '../../scripts/db/mariadb-instance';
 import { startServer, type RunningServer } from '../../server/index';
 import { signIn, DEMO } from '../support/api-client';
+import { freePort } from '../../scripts/lib/free-port';
 
-function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const srv = createServer().listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as { port: number };
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 let dir: string;
 let port: number;

@@ -2,7 +2,6 @@
 // resets, the admins' outbox, and a mail service that is down (nothing is lost).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { createServer } from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { startTestApp, type TestApp } from '../support/test-app';
@@ -10,6 +9,7 @@ import { anonymous, signIn, DEMO, type Caller } from '../support/api-client';
 import { waitFor } from '../support/wait-for';
 import { sinkMessages, tokenFrom, waitForMail } from '../support/mail-sink';
 import { startSmtpSink } from '../../server/mail/local-smtp-sink';
+import { freePort } from '../../scripts/lib/free-port';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 let app: TestApp;
@@ -102,12 +102,7 @@ describe('mail on loopback', () => {
 
 describe('mail service down', () => {
   it('keeps the message, retries, and delivers once the service is back', async () => {
-    const port = await new Promise<number>((resolve) => {
-      const s = createServer().listen(0, '127.0.0.1', () => {
-        const p = (s.address() as { port: number }).port;
-        s.close(() => resolve(p));
-      });
-    });
+    const port = await freePort();
     await app.stop();
     app = await startTestApp({ SMTP_HOST: '127.0.0.1', SMTP_PORT: String(port), MAIL_RETRY_SECONDS: '1' });
     admin = await signIn(app.url, DEMO.admin);
