@@ -13,6 +13,7 @@ import { ENGINE_VERSION } from '../../imports/engine-version';
 import { readUploadBytes } from '../../imports/read-upload-bytes';
 import type { ExportBundle } from '../../exports/export-bundle';
 import { memberOrder, memberWhere } from '../members/member-query';
+import { presentMemberRow } from '../members/member-presenter';
 import { describeFilter, type ExportQuery } from './export-query';
 
 /** A bigger export is refused rather than tying up the server; filter it instead. */
@@ -52,25 +53,7 @@ export async function loadExportBundle(project: ProjectModel, revision: Revision
       .map((m) => {
         const detail = m.detail as MemberDetail;
         return {
-          row: {
-            globalId: m.globalId,
-            tag: m.tag,
-            name: m.name,
-            ifcClass: m.ifcClass,
-            storey: m.storey,
-            profile: m.profileName,
-            grade: m.gradeName,
-            holeCount: m.holeCount,
-            lengthMm: m.lengthMm,
-            designForceN: m.designForceN,
-            forceSource: m.forceSource,
-            netAreaMm2: m.netAreaMm2,
-            designCapacityN: m.designCapacityN,
-            utilisation: m.utilisation,
-            governing: m.governing,
-            band: m.band,
-            warnings: detail.warnings ?? [],
-          },
+          row: { ...presentMemberRow(m), warnings: detail.warnings ?? [] },
           result: byMember.get(m.id)!.result as CheckResult,
           detail,
         };
