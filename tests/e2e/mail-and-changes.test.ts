@@ -233,7 +233,7 @@ describe('send critical members', () => {
       await form.getByLabel('Other addresses').fill('site.team@example.test');
       await form.getByRole('button', { name: /^Send revision 1/ }).click();
       const done = dialog.getByRole('status');
-      await done.getByText(/on their way/).waitFor();
+      await done.getByText(/queued for sending/).waitFor();
       await shot(page, 'send-critical-sent', false);
       await dialog.getByRole('button', { name: 'Done' }).click();
       await dialog.waitFor({ state: 'hidden' });
