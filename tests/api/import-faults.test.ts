@@ -74,7 +74,7 @@ afterAll(async () => {
 
 describe('import faults', () => {
   it('stops a job at its time limit and keeps the pool working for the next one', async () => {
-    const app = await start({ IMPORT_TIME_LIMIT_SECONDS: '6' });
+    const app = await start({ IMPORT_TIME_LIMIT_SECONDS: '8' });
     const engineer = await signIn(app.url, DEMO.engineer);
     const pid = await projectOf(engineer);
     const warm = await upload(engineer, pid, SAMPLE, 'warm-up.ifc');
