@@ -64,13 +64,17 @@ export async function runImportTask(task: ImportTask): Promise<ImportOutcome> {
     let geometry: Uint8Array | null = null;
     let geometryProblem: string | null = null;
     try {
-      geometry = (await buildDisplayGeometry(bytes)).bytes;
+      // Bounded, so a slow geometry kernel cannot push the whole import past its time limit.
+      const built = await buildDisplayGeometry(bytes, { timeBudgetMs: GEOMETRY_BUDGET_MS });
+      geometry = built.bytes;
+      if (built.stats.skipped) geometryProblem = `partial: ${built.stats.skipped} of ${built.stats.elements} elements left out after ${Math.round(GEOMETRY_BUDGET_MS / 1000)} s`;
     } catch (e) {
       geometryProblem = e instanceof Error ? e.message : String(e);
     }
     timings.geometryMs = performance.now() - t0;
     const summary = summarise(model, members, timings);
-    if (geometryProblem !== null) summary.warnings.push({ code: 'geometry.failed', message: 'The 3D view of this revision could not be prepared; results are not affected.', count: 1, examples: [geometryProblem.slice(0, 200)] });
+    if (geometryProblem !== null && geometry) summary.warnings.push({ code: 'geometry.partial', message: 'The 3D view of this revision shows only part of the model (preparing it took too long); results are not affected.', count: 1, examples: [geometryProblem.slice(0, 200)] });
+    else if (geometryProblem !== null) summary.warnings.push({ code: 'geometry.failed', message: 'The 3D view of this revision could not be prepared; results are not affected.', count: 1, examples: [geometryProblem.slice(0, 200)] });
     return transferGeometry({ ok: true, summary, members, geometry });
   } catch (err) {
     if (err instanceof ImportFailure) return { ok: false, failure: { id: err.id, message: err.message } };
@@ -80,6 +84,9 @@ export async function runImportTask(task: ImportTask): Promise<ImportOutcome> {
     task.progressPort?.close();
   }
 }
+
+/** Time the display geometry may take inside an import (the import's own limit defaults to 900 s). */
+const GEOMETRY_BUDGET_MS = 300_000;
 
 /** Lets piscina move the geometry bytes to the main thread instead of copying them. */
 function transferGeometry(outcome: ImportOutcome): ImportOutcome {

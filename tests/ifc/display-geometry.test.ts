@@ -84,6 +84,12 @@ describe('display geometry of the Kestrel Yard sample', () => {
     expect(uncut.stats.triangles).toBeLessThan(cut.stats.triangles);
   });
 
+  it('stops adding elements when its time budget is spent, and still writes a valid file', async () => {
+    const partial = await buildDisplayGeometry(SAMPLE, { timeBudgetMs: 0, chunkSize: 5 });
+    expect(partial.stats.skipped).toBe(partial.stats.elements);
+    expectConsistent(parseDisplayGeometry(partial.bytes));
+  });
+
   it('reads back what it writes (parse ∘ write is the identity)', async () => {
     const g = parseDisplayGeometry((await buildDisplayGeometry(SAMPLE)).bytes);
     const again = parseDisplayGeometry(writeDisplayGeometry(g));
