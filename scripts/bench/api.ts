@@ -198,6 +198,8 @@ async function main(): Promise<void> {
       };
       console.log(`\n${connections} connections, ${durationS.toFixed(1)} s, ${overall.requests} requests (limit ${requestLimit} or ${seconds} s), errors ${result.errors}, timeouts ${result.timeouts}; table query mix: ${JSON.stringify(samples)}\n`);
       console.log(apiTable(results));
+      // Let requests still queued in the app finish before it is stopped.
+      await new Promise((r) => setTimeout(r, 3000));
       console.log(`\nautocannon's own latency (all requests): p50 ${result.latency.p50} ms, p97.5 ${result.latency.p97_5} ms, p99 ${result.latency.p99} ms; app RSS peak ${(rssPeak / 1048576).toFixed(0)} MB`);
       console.log(`results: ${path.relative(ROOT, writeResults('api', results))}`);
     } finally {
@@ -208,11 +210,13 @@ async function main(): Promise<void> {
   }
 }
 
+const ms = (v: number) => (Number.isFinite(v) ? `${Math.round(v)} ms` : '—');
+
 export function apiTable(r: ApiResults): string {
   return table(
     ['endpoint', 'requests', 'req/s', 'p50', 'p95', 'p99', 'max', 'non-2xx', 'mean body', 'p95 target < 100 ms'],
     [...r.endpoints, r.overall].map((e) => [
-      e.endpoint, String(e.requests), e.perSecond.toFixed(0), `${e.p50} ms`, `${e.p95} ms`, `${e.p99} ms`, `${e.max} ms`, String(e.non2xx), `${(e.meanBytes / 1024).toFixed(1)} KB`,
+      e.endpoint, String(e.requests), e.perSecond.toFixed(0), ms(e.p50), ms(e.p95), ms(e.p99), ms(e.max), String(e.non2xx), `${(e.meanBytes / 1024).toFixed(1)} KB`,
       e.p95 < 100 ? '✓' : '✗',
     ]),
   );
