@@ -17,6 +17,8 @@ import type { StandardId } from '@shared/api/projects';
 import { claimNextJob, failJob, heartbeat, reportProgress } from './job-claims';
 import { storeOutcome } from './store-outcome';
 import type { ImportOutcome, ImportTask, ProgressMessage } from './run-import-task';
+import type { GeometryOutcome, GeometryTask } from './run-geometry-task';
+import type { RevisionSummary } from '@shared/api/models';
 import { geometryKey } from '../features/geometry/geometry-key';
 
 /**
@@ -121,9 +123,9 @@ export class ImportRunner {
         return;
       }
       await reportProgress(job.id, this.owner, 'checking', 0.99);
-      if (outcome.geometry) await this.storeGeometry(job.id, outcome.geometry, outcome.summary);
       const kept = await storeOutcome(this.sequelize, job.id, this.owner, job.standard, outcome.summary, outcome.members);
       if (!kept) this.logger.warn(`import ${job.id}: another process took the job over; this result was dropped`);
+      else this.track(this.buildGeometry(job));
     } catch (err) {
       // While shutting down, leave the job claimed: its heartbeat goes stale and a running process takes it over.
       if (this.stopping) return;
@@ -143,18 +145,67 @@ export class ImportRunner {
     }
   }
 
-  /** Display geometry goes to the file store under a key derived from the revision; failing here only warns. */
-  private async storeGeometry(revisionId: number, bytes: Uint8Array, summary: { warnings: { code: string; message: string; count: number; examples: string[] }[] }): Promise<void> {
-    const tmp = path.join(tmpdir(), `gaugeline-geometry-${revisionId}-${randomBytes(4).toString('hex')}.bin`);
+  /**
+   * Builds and stores the 3D view's geometry after the results are stored. It takes a
+   * worker slot like a job; a failure only marks the view as unavailable.
+   */
+  private async buildGeometry(job: RevisionModel): Promise<void> {
+    let local: { path: string; release(): Promise<void> } | undefined;
+    let status: 'ready' | 'failed' = 'failed';
+    let problem: string | null = null;
+    const tmp = path.join(tmpdir(), `gaugeline-geometry-${job.id}-${randomBytes(4).toString('hex')}.bin`);
     try {
-      await fsp.writeFile(tmp, bytes);
-      await this.store.put(geometryKey(revisionId), tmp);
+      local = await this.store.fetchToLocal(job.storageKey);
+      const task: GeometryTask = {
+        job: 'geometry',
+        filePath: local.path,
+        kind: job.storageKey.endsWith('.ifczip') ? 'ifczip' : 'ifc',
+        inflateLimitBytes: this.config.uploads.archiveInflateLimitBytes,
+        timeBudgetMs: Math.max(1000, this.config.imports.timeLimitMs - 30_000),
+      };
+      const out: GeometryOutcome = await this.pool.run(task, { signal: AbortSignal.timeout(this.config.imports.timeLimitMs) });
+      problem = out.problem;
+      if (out.geometry) {
+        await fsp.writeFile(tmp, out.geometry);
+        await this.store.put(geometryKey(job.id), tmp);
+        status = 'ready';
+      }
     } catch (err) {
-      this.logger.warn(`import ${revisionId}: display geometry not stored: ${(err as Error).message}`);
-      summary.warnings.push({ code: 'geometry.failed', message: 'The 3D view of this revision could not be stored; results are not affected.', count: 1, examples: [] });
+      if (this.stopping) return;
+      problem = (err as Error).message;
     } finally {
       await fsp.rm(tmp, { force: true }).catch(() => undefined);
+      await local?.release().catch(() => undefined);
     }
+    await this.recordGeometry(job.id, status, problem).catch((err) => this.logger.warn(`import ${job.id}: ${(err as Error).message}`));
+  }
+
+  private async recordGeometry(revisionId: number, status: 'ready' | 'failed', problem: string | null): Promise<void> {
+    const revision = await RevisionModel.findByPk(revisionId);
+    if (!revision?.summary) return;
+    const summary = { ...(revision.summary as RevisionSummary), geometry: status };
+    if (problem) {
+      const partial = status === 'ready';
+      summary.warnings = [
+        ...summary.warnings,
+        {
+          code: partial ? 'geometry.partial' : 'geometry.failed',
+          message: partial ? 'The 3D view of this revision shows only part of the model (preparing it took too long); results are not affected.' : 'The 3D view of this revision could not be prepared; results are not affected.',
+          count: 1,
+          examples: [problem.slice(0, 200)],
+        },
+      ];
+    }
+    await revision.update({ summary });
+  }
+
+  /** Keeps a background piece of work in the running set, so the slot count and stop() see it. */
+  private track(work: Promise<void>): void {
+    const run = work.finally(() => {
+      this.active.delete(run);
+      this.kick();
+    });
+    this.active.add(run);
   }
 
   /** The rows of a forces table stored with the upload, or the reason it cannot be used. */

@@ -1,11 +1,12 @@
 // Entry file of the import worker threads. Workers do not inherit the TypeScript loader
-// when the pool is created from a test runner, so register tsx here, then load the task.
+// when the pool is created from a test runner, so register tsx here, then load the tasks.
 import { register } from 'tsx/esm/api';
 
 register();
-const loaded = import('./run-import-task.ts');
+const importTask = import('./run-import-task.ts');
+const geometryTask = import('./run-geometry-task.ts');
 
 export default async function importWorker(task) {
-  const { runImportTask } = await loaded;
-  return runImportTask(task);
+  if (task.job === 'geometry') return (await geometryTask).runGeometryTask(task);
+  return (await importTask).runImportTask(task);
 }

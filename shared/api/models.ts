@@ -33,6 +33,8 @@ export const revisionSummarySchema = z.object({
   countsByClass: z.record(z.string(), z.number().int()),
   warnings: z.array(importWarningSchema),
   timings: z.record(z.string(), z.number()).optional(),
+  /** The 3D view's geometry: built after the results are stored. */
+  geometry: z.enum(['pending', 'ready', 'failed']).optional(),
 });
 export type RevisionSummary = z.infer<typeof revisionSummarySchema>;
 

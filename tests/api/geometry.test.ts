@@ -37,8 +37,9 @@ beforeAll(async () => {
   const up = await engineer.agent.post(`/api/projects/${projectId}/uploads`).set('X-CSRF-Token', engineer.csrf).attach('file', SAMPLE, 'kestrel-yard-shed.ifc');
   expect(up.status).toBe(201);
   revisionId = up.body.revision.id;
-  const done = await waitFor(() => engineer.call('get', `/api/projects/${projectId}/revisions/${revisionId}`), (r) => ['done', 'failed'].includes(r.body.status), 90_000);
+  const done = await waitFor(() => engineer.call('get', `/api/projects/${projectId}/revisions/${revisionId}`), (r) => r.body.status === 'failed' || (r.body.status === 'done' && r.body.summary?.geometry !== 'pending'), 90_000);
   expect(done.body.status).toBe('done');
+  expect(done.body.summary.geometry).toBe('ready');
   base = `/api/projects/${projectId}/revisions/${revisionId}`;
 });
 afterAll(async () => {

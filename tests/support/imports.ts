@@ -11,11 +11,11 @@ export async function uploadFile(caller: Caller, projectId: number, bytes: Buffe
   return modelName ? req.field('modelName', modelName) : req;
 }
 
-/** Polls a revision until its job has ended (done or failed) or the time is up. */
+/** Polls a revision until its job has ended (done or failed) and its 3D geometry is no longer being built. */
 export async function importEnded(caller: Caller, projectId: number, revisionId: number, timeoutMs = 90_000) {
   return waitFor(
     () => caller.call('get', `/api/projects/${projectId}/revisions/${revisionId}`),
-    (r) => ['done', 'failed'].includes(r.body?.status),
+    (r) => r.body?.status === 'failed' || (r.body?.status === 'done' && r.body?.summary?.geometry !== 'pending'),
     timeoutMs,
   );
 }

@@ -13,6 +13,8 @@ import { geometryKey } from './geometry-key';
 
 /** Stable error id when a revision has no display geometry (not imported yet, or it failed). */
 export const GEOMETRY_UNAVAILABLE = 'geometry.unavailable';
+/** The results are stored and the geometry is still being built: ask again shortly. */
+export const GEOMETRY_PENDING = 'geometry.pending';
 
 /**
  * GET /api/projects/:projectId/revisions/:revisionId/geometry — the revision's display
@@ -31,6 +33,9 @@ export function geometryRoutes(store: FileStore): Router {
     const revision = await findRevision(project.id, parseId(req.params.revisionId, 'That revision'));
     const key = geometryKey(revision.id);
     const unavailable = () => new AppError(404, GEOMETRY_UNAVAILABLE, revision.status === 'done' ? 'This revision has no 3D view.' : 'The 3D view is prepared when the import has finished.');
+    if ((revision.summary as { geometry?: string } | null)?.geometry === 'pending') {
+      throw new AppError(404, GEOMETRY_PENDING, 'The 3D view is being prepared; the results are ready already.');
+    }
     if (revision.status !== 'done' || !(await store.exists(key))) throw unavailable();
 
     const cached = etags.get(key);

@@ -31,5 +31,8 @@ export function useDisplayGeometry(projectId: number, revisionId: number) {
     queryFn: ({ signal }) => fetchDisplayGeometry(projectId, revisionId, signal),
     staleTime: Infinity,
     gcTime: 5 * 60_000,
+    // The geometry is built just after the results: while it is, ask again every two seconds.
+    retry: (count, error) => error instanceof ApiError && error.code === 'geometry.pending' && count < 300,
+    retryDelay: 2000,
   });
 }

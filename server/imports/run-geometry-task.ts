@@ -1,0 +1,41 @@
+import { transferableSymbol, valueSymbol, move } from 'piscina';
+import { buildDisplayGeometry } from '../ifc/display-geometry';
+import { readUploadBytes } from './read-upload-bytes';
+
+export interface GeometryTask {
+  job: 'geometry';
+  filePath: string;
+  kind: 'ifc' | 'ifczip';
+  inflateLimitBytes: number;
+  /** The build stops after this and keeps what it has. */
+  timeBudgetMs: number;
+}
+
+export interface GeometryOutcome {
+  geometry: Uint8Array | null;
+  /** Why the view is partial or missing; null when complete. */
+  problem: string | null;
+  elapsedMs: number;
+}
+
+/**
+ * Builds the 3D display geometry of an uploaded model, inside a worker thread. It runs
+ * after the revision's results are stored, so a slow geometry kernel never holds them back.
+ */
+export async function runGeometryTask(task: GeometryTask): Promise<GeometryOutcome> {
+  const started = performance.now();
+  let outcome: GeometryOutcome;
+  try {
+    const bytes = await readUploadBytes(task.filePath, task.kind, task.inflateLimitBytes);
+    const built = await buildDisplayGeometry(bytes, { timeBudgetMs: task.timeBudgetMs });
+    const problem = built.stats.skipped ? `partial: ${built.stats.skipped} of ${built.stats.elements} elements left out after ${Math.round(task.timeBudgetMs / 1000)} s` : null;
+    outcome = { geometry: built.bytes, problem, elapsedMs: performance.now() - started };
+  } catch (err) {
+    return { geometry: null, problem: err instanceof Error ? err.message : String(err), elapsedMs: performance.now() - started };
+  }
+  if (!outcome.geometry) return outcome;
+  // Move the bytes to the main thread instead of copying them.
+  Object.defineProperty(outcome, transferableSymbol, { value: [outcome.geometry.buffer] });
+  Object.defineProperty(outcome, valueSymbol, { value: { ...outcome } });
+  return move(outcome as never) as unknown as GeometryOutcome;
+}
