@@ -17,7 +17,7 @@ import { fileURLToPath } from 'node:url';
 import { serialize } from 'node:v8';
 import {
   BENCH_DIR, ROOT, cpuMsOf, firstProjectId, median, fmtMb, fmtMs, fmtSpread, peakRssOf, resetPeakRss, rssOf, sampleRss, signIn,
-  spread, startAppProcess, startThrowawayDb, table, uploadFile, waitForRevision, writeResults, type Spread,
+  spread, startAppProcess, startThrowawayDb, table, uploadFile, waitForGeometry, waitForRevision, writeResults, type Spread,
 } from './lib/bench-support.ts';
 
 const SELF = fileURLToPath(import.meta.url);
@@ -223,7 +223,7 @@ export interface ImportRow {
   fileBytes: number;
   generation: { ms: number | null; cached: boolean };
   bare: { total: Spread; cpu: Spread; open: Spread; list: Spread; lines: number };
-  whole: { ms: Spread; cpu: Spread; runs: number[]; worker: { readAndExtractMs: Spread; checkMs: Spread; geometryMs: Spread }; peakRss: Spread; peakRssHwm: Spread; rssBefore: Spread };
+  whole: { ms: Spread; cpu: Spread; runs: number[]; worker: { readAndExtractMs: Spread; checkMs: Spread; geometryMs: Spread }; geometryAfterMs?: Spread | null; peakRss: Spread; peakRssHwm: Spread; rssBefore: Spread };
   ratio: { wholeOverBare: number; cpuOverBareCpu: number; peakRssOverFile: number };
   direct?: { ms: Record<string, number>; heapPeak: number; externalPeak: number; rssPeak: number; rssBefore: number; cloneBytes: number; detailBytes: number; resultBytes: number; geometryBytes: number | null };
 }
@@ -268,7 +268,7 @@ async function main(): Promise<void> {
       for (const n of sizes) {
         const { file } = files.get(n)!;
         const fileBytes = statSync(file).size;
-        const runs: { ms: number; cpu: number; rex: number; check: number; geometry: number; peak: number; hwm: number; before: number }[] = [];
+        const runs: { ms: number; cpu: number; rex: number; check: number; geometry: number; geometryAfter?: number; peak: number; hwm: number; before: number }[] = [];
         for (let i = 0; i < repeatFor(n); i++) {
           const before = rssOf(app.pid);
           const hwmOk = resetPeakRss(app.pid);
@@ -286,6 +286,12 @@ async function main(): Promise<void> {
           runs.push({ ms, cpu, rex: tm.readAndExtractMs ?? NaN, check: tm.checkMs ?? NaN, geometry: tm.geometryMs ?? NaN, peak, hwm: hwmOk ? peakRssOf(app.pid) : NaN, before });
           console.log(`whole ${n} #${i + 1}: ${fmtMs(ms)}, app CPU ${fmtMs(cpu)} (worker read+extract ${fmtMs(tm.readAndExtractMs ?? NaN)}, check ${fmtMs(tm.checkMs ?? NaN)}${tm.geometryMs !== undefined ? `, display geometry ${fmtMs(tm.geometryMs)}` : ''}), app RSS ${fmtMb(before)} → peak ${fmtMb(peak)} (VmHWM ${fmtMb(runs.at(-1)!.hwm)})`);
           if (flag('timeline')) console.log(`  ${timeline.join(' → ')}`);
+          // The 3D geometry is built after the results are stored; let it finish so the next import starts on an idle app.
+          const geo = await waitForGeometry(app.url, session, projectId, up.revisionId);
+          if (geo) {
+            runs.at(-1)!.geometryAfter = geo.ms;
+            console.log(`  3D geometry ${geo.state} ${fmtMs(geo.ms)} after the results`);
+          }
         }
         const b = bare.get(n)!;
         const whole = spread(runs.map((r) => r.ms));
@@ -295,6 +301,7 @@ async function main(): Promise<void> {
           whole: {
             ms: whole, cpu: spread(runs.map((r) => r.cpu)), runs: runs.map((r) => Math.round(r.ms)),
             worker: { readAndExtractMs: spread(runs.map((r) => r.rex)), checkMs: spread(runs.map((r) => r.check)), geometryMs: spread(runs.map((r) => r.geometry)) },
+            geometryAfterMs: runs.some((r) => r.geometryAfter !== undefined) ? spread(runs.map((r) => r.geometryAfter ?? NaN)) : null,
             peakRss, peakRssHwm: spread(runs.map((r) => r.hwm)), rssBefore: spread(runs.map((r) => r.before)),
           },
           ratio: { wholeOverBare: whole.median / b.total.median, cpuOverBareCpu: median(runs.map((r) => r.cpu)) / b.cpu.median, peakRssOverFile: peakRss.max / fileBytes },

@@ -1,7 +1,8 @@
 /**
  * npm run bench: the engine, import and API benchmarks in sequence (and the viewer benchmark
  * when scripts/bench/viewer.ts exists), then docs/benchmarks.md with the machine, the date,
- * every table and the targets. Extra arguments go to the import benchmark (e.g. -- --big).
+ * every table and the targets. Extra arguments go to the import benchmark (e.g. -- --big);
+ * -- --skip-viewer leaves the viewer benchmark out; -- --report-only rewrites the report from the last run.
  */
 import { execFileSync, spawn } from 'node:child_process';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
@@ -73,10 +74,10 @@ async function main(): Promise<void> {
   const loadStart = os.loadavg();
   const runs: Ran[] = [];
   runs.push(await runBench('engine', 'scripts/bench/engine.ts'));
-  runs.push(await runBench('import', 'scripts/bench/import.ts', process.argv.slice(2)));
+  runs.push(await runBench('import', 'scripts/bench/import.ts', process.argv.slice(2).filter((a) => a !== '--skip-viewer')));
   runs.push(await runBench('api', 'scripts/bench/api.ts'));
   const viewer = path.join(ROOT, 'scripts/bench/viewer.ts');
-  if (existsSync(viewer)) runs.push(await runBench('viewer', 'scripts/bench/viewer.ts'));
+  if (existsSync(viewer) && !process.argv.includes('--skip-viewer')) runs.push(await runBench('viewer', 'scripts/bench/viewer.ts'));
   const loadEnd = os.loadavg();
   writeResults('runs', { started: started.toISOString(), loadStart, loadEnd, runs });
   writeReport(started, loadStart, loadEnd, runs);
@@ -130,7 +131,7 @@ function writeReport(started: Date, loadStart: number[], loadEnd: number[], runs
       '',
       fence(
         imp.rows
-          .map((r) => `${r.members.toLocaleString('en').padStart(7)} members: read + extract ${fmtMs(r.whole.worker.readAndExtractMs.median)}, check ${fmtMs(r.whole.worker.checkMs.median)}${Number.isFinite(r.whole.worker.geometryMs?.median) ? `, display geometry ${fmtMs(r.whole.worker.geometryMs.median)}` : ''} of ${fmtMs(r.whole.ms.median)} whole`)
+          .map((r) => `${r.members.toLocaleString('en').padStart(7)} members: read + extract ${fmtMs(r.whole.worker.readAndExtractMs.median)}, check ${fmtMs(r.whole.worker.checkMs.median)}${Number.isFinite(r.whole.worker.geometryMs?.median) ? `, display geometry ${fmtMs(r.whole.worker.geometryMs.median)}` : ''} of ${fmtMs(r.whole.ms.median)} whole${r.whole.geometryAfterMs ? `; 3D view ready ${fmtMs(r.whole.geometryAfterMs.median)} after the results (not in "whole")` : ''}`)
           .join('\n'),
       ),
       '',

@@ -216,7 +216,7 @@ export interface RevisionState {
   status: string;
   progress: number;
   failure?: { error: string; message: string } | null;
-  summary?: { candidates: number; timings?: Record<string, number> } | null;
+  summary?: { candidates: number; timings?: Record<string, number>; geometry?: 'pending' | 'ready' | 'failed' } | null;
 }
 
 /** Polls a revision every `everyMs` until it is done or failed. */
@@ -233,6 +233,18 @@ export async function waitForRevision(
     if (r.status === 'done' || r.status === 'failed') return r;
     if (Date.now() > deadline) throw new Error(`revision ${revisionId} still ${r.status} after ${timeoutMs} ms`);
     await sleep(everyMs);
+  }
+}
+
+/** Polls until the revision's 3D geometry (built after the results are stored) is no longer pending; ms waited, or null when not tracked. */
+export async function waitForGeometry(url: string, s: Session, projectId: number, revisionId: number, timeoutMs = 20 * 60_000): Promise<{ ms: number; state: string } | null> {
+  const t0 = performance.now();
+  for (;;) {
+    const r = await getJson<RevisionState>(`${url}/api/projects/${projectId}/revisions/${revisionId}`, s);
+    const g = r.summary?.geometry;
+    if (g === undefined) return null;
+    if (g !== 'pending' || performance.now() - t0 > timeoutMs) return { ms: performance.now() - t0, state: g };
+    await sleep(250);
   }
 }
 
