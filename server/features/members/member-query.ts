@@ -41,13 +41,18 @@ export function memberWhere(revisionId: number, q: Query): WhereOptions {
   return { [Op.and]: and };
 }
 
-/** Rows without a value sort last in either direction; GlobalId breaks ties so pages are stable. */
+/**
+ * Rows without a value sort last in either direction; GlobalId breaks ties so pages are
+ * stable. MariaDB already puts NULLs last when sorting descending, so the default order
+ * (utilisation, descending) needs no extra term and can walk the (revision, utilisation) index.
+ */
 export function memberOrder(q: Query): Order {
   const column = SORT_COLUMN[q.sort];
+  if (q.dir === 'desc') return [[column, 'DESC'], ['globalId', 'ASC']];
   const field = (MemberModel.getAttributes() as Record<string, { field?: string }>)[column]?.field ?? column;
   return [
     [literal(`\`${field}\` IS NULL`), 'ASC'],
-    [column, q.dir.toUpperCase()],
+    [column, 'ASC'],
     ['globalId', 'ASC'],
   ];
 }
