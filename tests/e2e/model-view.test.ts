@@ -11,7 +11,7 @@ import { BAND_STYLE, RESULT_BANDS, type MemberRow, type ResultBand } from '@shar
 import { startTestApp, type TestApp } from '../support/test-app';
 import { launchBrowser } from '../support/browser';
 import { signIn, DEMO, type Caller } from '../support/api-client';
-import { waitFor } from '../support/wait-for';
+import { importEnded, uploadFile } from '../support/imports';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
@@ -31,10 +31,10 @@ beforeAll(async () => {
   browser = await launchBrowser();
   engineer = await signIn(app.url, DEMO.engineer);
   projectId = (await engineer.call('get', '/api/projects')).body.projects[0].id;
-  const up = await engineer.agent.post(`/api/projects/${projectId}/uploads`).set('X-CSRF-Token', engineer.csrf).attach('file', SAMPLE, 'kestrel-yard-shed.ifc');
+  const up = await uploadFile(engineer, projectId, SAMPLE, 'kestrel-yard-shed.ifc');
   expect(up.status, JSON.stringify(up.body)).toBe(201);
   revisionId = up.body.revision.id;
-  const done = await waitFor(() => engineer.call('get', `/api/projects/${projectId}/revisions/${revisionId}`), (r) => r.body.status === 'failed' || (r.body.status === 'done' && r.body.summary?.geometry !== 'pending'), 90_000);
+  const done = await importEnded(engineer, projectId, revisionId);
   expect(done.body.status).toBe('done');
   const forces = await engineer.call('post', `/api/projects/${projectId}/revisions/${revisionId}/forces`, { csv: FORCES });
   expect(forces.status, JSON.stringify(forces.body)).toBe(200);
