@@ -11,7 +11,7 @@ import { BAND_STYLE, RESULT_BANDS, type MemberRow, type ResultBand } from '@shar
 import { startTestApp, type TestApp } from '../support/test-app';
 import { launchBrowser } from '../support/browser';
 import { signIn, DEMO, type Caller } from '../support/api-client';
-import { importEnded, uploadFile } from '../support/imports';
+import { importSample } from '../support/imports';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
@@ -30,12 +30,7 @@ beforeAll(async () => {
   app = await startTestApp({ IMPORT_POLL_MS: '100' });
   browser = await launchBrowser();
   engineer = await signIn(app.url, DEMO.engineer);
-  projectId = (await engineer.call('get', '/api/projects')).body.projects[0].id;
-  const up = await uploadFile(engineer, projectId, SAMPLE, 'kestrel-yard-shed.ifc');
-  expect(up.status, JSON.stringify(up.body)).toBe(201);
-  revisionId = up.body.revision.id;
-  const done = await importEnded(engineer, projectId, revisionId);
-  expect(done.body.status).toBe('done');
+  ({ projectId, revisionId } = await importSample(engineer, SAMPLE));
   const forces = await engineer.call('post', `/api/projects/${projectId}/revisions/${revisionId}/forces`, { csv: FORCES });
   expect(forces.status, JSON.stringify(forces.body)).toBe(200);
   rows = (await engineer.call('get', `/api/projects/${projectId}/revisions/${revisionId}/members?scope=all&pageSize=500`)).body.members;

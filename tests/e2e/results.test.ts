@@ -13,7 +13,7 @@ import { JOB_STATUS_LABELS, type MemberRow } from '@shared/api';
 import { startTestApp, type TestApp } from '../support/test-app';
 import { launchBrowser } from '../support/browser';
 import { signIn, DEMO, type Caller } from '../support/api-client';
-import { importEnded, uploadFile } from '../support/imports';
+import { importSample } from '../support/imports';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
@@ -30,12 +30,7 @@ beforeAll(async () => {
   app = await startTestApp({ IMPORT_POLL_MS: '100' });
   browser = await launchBrowser();
   engineer = await signIn(app.url, DEMO.engineer);
-  projectId = (await engineer.call('get', '/api/projects')).body.projects[0].id;
-  const up = await uploadFile(engineer, projectId, SAMPLE, 'kestrel-yard-shed.ifc');
-  expect(up.status, JSON.stringify(up.body)).toBe(201);
-  revisionId = up.body.revision.id;
-  const done = await importEnded(engineer, projectId, revisionId);
-  expect(done.body.status).toBe('done');
+  ({ projectId, revisionId } = await importSample(engineer, SAMPLE));
   rows = (await engineer.call('get', `/api/projects/${projectId}/revisions/${revisionId}/members?pageSize=500`)).body.members;
 });
 

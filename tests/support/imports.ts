@@ -55,3 +55,17 @@ export async function revisionRowsJson(dbName: string, revisionId: number): Prom
     forces: await dbQuery(dbName, 'SELECT f.* FROM member_forces f JOIN members m ON m.id = f.member_id WHERE m.revision_id = ? ORDER BY f.id', [revisionId]),
   });
 }
+
+/**
+ * Uploads the demo sample to the caller's first project and waits until it is checked
+ * (and its 3D geometry built). Fails the calling test when either step does not succeed.
+ */
+export async function importSample(caller: Caller, sample: Buffer): Promise<{ projectId: number; revisionId: number }> {
+  const projectId = (await caller.call('get', '/api/projects')).body.projects[0].id as number;
+  const up = await uploadFile(caller, projectId, sample, 'kestrel-yard-shed.ifc');
+  if (up.status !== 201) throw new Error(`sample upload answered ${up.status}: ${JSON.stringify(up.body)}`);
+  const revisionId = up.body.revision.id as number;
+  const done = await importEnded(caller, projectId, revisionId);
+  if (done.body.status !== 'done') throw new Error(`sample import ended ${done.body.status}: ${JSON.stringify(done.body.failure)}`);
+  return { projectId, revisionId };
+}
