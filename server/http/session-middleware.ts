@@ -13,6 +13,7 @@ export function createSessionMiddleware(sequelize: Sequelize, config: AppConfig)
     checkExpirationInterval: 15 * 60 * 1000,
     expiration: config.session.maxAgeMs,
   });
+  throttleTouch(store);
   const middleware = session({
     name: 'gaugeline.sid',
     secret: config.session.secret,
@@ -28,4 +29,24 @@ export function createSessionMiddleware(sequelize: Sequelize, config: AppConfig)
     },
   });
   return { middleware, stop: () => (store as unknown as { stopExpiringSessions(): void }).stopExpiringSessions() };
+}
+
+/** How often a session's expiry is written back while it is in use. */
+const TOUCH_EVERY_MS = 60_000;
+
+/**
+ * A rolling session would otherwise cost an UPDATE on every request. The expiry written
+ * lags use by at most a minute, which matters nothing against a session lifetime of hours.
+ */
+function throttleTouch(store: session.Store): void {
+  const lastTouch = new Map<string, number>();
+  const touch = store.touch!.bind(store);
+  store.touch = (sid, data, done) => {
+    const now = Date.now();
+    if (now - (lastTouch.get(sid) ?? 0) < TOUCH_EVERY_MS) return done?.();
+    // Bounded: forget everything once in a while rather than track expiry per entry.
+    if (lastTouch.size > 10_000) lastTouch.clear();
+    lastTouch.set(sid, now);
+    touch(sid, data, done);
+  };
 }

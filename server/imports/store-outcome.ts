@@ -1,4 +1,4 @@
-import { Op, type Sequelize } from 'sequelize';
+import { Op, literal, type Sequelize } from 'sequelize';
 import type { RevisionSummary } from '@shared/api/models';
 import { MemberModel } from '../db/models/member';
 import { MemberForceModel } from '../db/models/member-force';
@@ -63,7 +63,8 @@ export async function storeOutcome(
     const results = members.filter((m) => m.result).map((m) => ({ memberId: idOf.get(m.globalId)!, standard, engineVersion: ENGINE_VERSION, result: m.result! }));
     await inChunks(results, (chunk) => CheckResultModel.bulkCreate(chunk, { transaction }));
     const [affected] = await RevisionModel.update(
-      { status: 'done', progress: 1, summary, schemaName: summary.schema, finishedAt: new Date(), heartbeatAt: new Date() },
+      // The results version moves so that a retried job's rows replace any copy held in memory.
+      { resultsVersion: literal('results_version + 1'), status: 'done', progress: 1, summary, schemaName: summary.schema, finishedAt: new Date(), heartbeatAt: new Date() },
       { where: { id: revisionId, claimedBy: owner, status: { [Op.notIn]: ['done', 'failed'] } }, transaction },
     );
     if (affected !== 1) throw new LostClaimError();

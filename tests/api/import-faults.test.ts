@@ -10,7 +10,7 @@ import { signIn, DEMO, type Caller } from '../support/api-client';
 import { waitFor } from '../support/wait-for';
 import { testDbServer } from '../support/test-db';
 import { makeSyntheticModel } from '../../scripts/samples/make-samples';
-import { spawnApp, type AppProcess } from '../support/spawn-app';
+import { sharedEnvOf, spawnApp, type AppProcess } from '../support/spawn-app';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
@@ -26,13 +26,7 @@ async function start(env: Record<string, string>) {
 const others: AppProcess[] = [];
 
 /** Environment for a child app process that shares a test app's database and data folder. */
-function shareEnv(app: TestApp, extra: Record<string, string>): Record<string, string> {
-  const c = app.server.config;
-  return {
-    DB_HOST: c.db.host, DB_PORT: String(c.db.port), DB_NAME: c.db.name, DB_USER: c.db.user, DB_PASSWORD: c.db.password,
-    SESSION_SECRET: c.session.secret, DATA_DIR: c.dataDir, CLIENT_DIST: '/nonexistent', DEMO_SEED: 'off', IMPORT_POLL_MS: '100', ...extra,
-  };
-}
+const shareEnv = (app: TestApp, extra: Record<string, string>) => sharedEnvOf(app.server.config, extra);
 
 async function projectOf(caller: Caller): Promise<number> {
   return (await caller.call('get', '/api/projects')).body.projects[0].id;

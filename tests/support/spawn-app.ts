@@ -43,3 +43,11 @@ export async function spawnApp(env: Record<string, string>): Promise<AppProcess>
     },
   };
 }
+
+/** Environment for a child app process that shares an in-process test app's database and data folder. */
+export function sharedEnvOf(config: { db: { host: string; port: number; name: string; user: string; password: string }; session: { secret: string }; dataDir: string }, extra: Record<string, string> = {}): Record<string, string> {
+  return {
+    DB_HOST: config.db.host, DB_PORT: String(config.db.port), DB_NAME: config.db.name, DB_USER: config.db.user, DB_PASSWORD: config.db.password,
+    SESSION_SECRET: config.session.secret, DATA_DIR: config.dataDir, CLIENT_DIST: '/nonexistent', DEMO_SEED: 'off', IMPORT_POLL_MS: '100', ...extra,
+  };
+}

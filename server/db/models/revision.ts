@@ -12,6 +12,8 @@ export class RevisionModel extends Model<InferAttributes<RevisionModel>, InferCr
   declare storageKey: string;
   /** A forces table stored with the upload, applied when the revision is checked. */
   declare forcesStorageKey: CreationOptional<string | null>;
+  /** Moves whenever the revision's member results change; in-memory readers compare it. */
+  declare resultsVersion: CreationOptional<number>;
   declare uploadedById: number | null;
   declare standard: string;
   declare status: JobStatus;
@@ -40,6 +42,7 @@ export function initRevisionModel(sequelize: Sequelize): void {
       sha256: { type: DataTypes.CHAR(64), allowNull: false },
       storageKey: { type: DataTypes.STRING(255), allowNull: false, field: 'storage_key' },
       forcesStorageKey: { type: DataTypes.STRING(255), allowNull: true, field: 'forces_storage_key' },
+      resultsVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0, field: 'results_version' },
       uploadedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true, field: 'uploaded_by_id' },
       standard: { type: DataTypes.STRING(20), allowNull: false },
       status: { type: DataTypes.STRING(16), allowNull: false },

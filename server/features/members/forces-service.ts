@@ -7,6 +7,7 @@ import { AuditEntryModel } from '../../db/models/audit-entry';
 import type { RevisionModel } from '../../db/models/revision';
 import { AppError } from '../../http/errors';
 import { recheckMember } from './recheck-member';
+import { bumpResultsVersion } from './results-version';
 
 export interface ForcesReport {
   unit: string;
@@ -59,6 +60,7 @@ export async function applyForcesCsv(sequelize: Sequelize, actorId: number, proj
       const { force, source } = designForceFrom(all.filter((f) => f.memberId === member.id));
       if (await recheckMember(member, revision.standard, { force, source }, transaction)) rechecked++;
     }
+    await bumpResultsVersion(revision.id, transaction);
     await AuditEntryModel.create(
       { actorId, projectId, action: 'forces.applied', subject: `revision:${revision.id}`, detail: { unit: parsed.unit, rows: matched.length, members: memberIds.length }, reason: null },
       { transaction },

@@ -4,8 +4,9 @@ import { memberQuerySchema, forcesUploadSchema } from '@shared/api/members';
 import { memberOverrideRequestSchema } from '@shared/api/overrides';
 import { parseBody, parseId } from '../../http/validate';
 import { currentUser, requireRole, requireSignedIn } from '../../http/require-user';
-import { findEditableProject, findVisibleProject } from '../projects/project-policy';
+import { findEditableProject } from '../projects/project-policy';
 import { findRevision } from '../models/model-service';
+import { findVisibleRevision } from '../models/visible-revision';
 import { errors } from '../../http/errors';
 import { listMembers, memberSheet, revisionOverview } from './member-service';
 import { applyForcesCsv } from './forces-service';
@@ -17,14 +18,13 @@ export function memberRoutes(sequelize: Sequelize): Router {
   const router = Router({ mergeParams: true });
   router.use(requireSignedIn);
 
-  async function visibleRevision(req: express.Request) {
-    const project = await findVisibleProject(currentUser(req), parseId(req.params.projectId, 'That project'));
-    return { project, revision: await findRevision(project.id, parseId(req.params.revisionId, 'That revision')) };
-  }
+  const visibleRevision = async (req: express.Request) => ({
+    revision: await findVisibleRevision(currentUser(req), parseId(req.params.projectId, 'That project'), parseId(req.params.revisionId, 'That revision')),
+  });
 
   router.get('/members', async (req, res) => {
     const { revision } = await visibleRevision(req);
-    res.json(await listMembers(revision.id, parseBody(memberQuerySchema, req.query)));
+    res.json(await listMembers(revision, parseBody(memberQuerySchema, req.query)));
   });
 
   router.get('/overview', async (req, res) => {

@@ -10,21 +10,15 @@ import { MemberForceModel } from '../../db/models/member-force';
 import { CheckResultModel } from '../../db/models/check-result';
 import type { RevisionModel } from '../../db/models/revision';
 import { errors } from '../../http/errors';
-import { memberOrder, memberWhere } from './member-query';
+import { memberWhere } from './member-query';
+import { cachedMemberPage } from './member-table-cache';
 import { presentMemberRow } from './member-presenter';
 
 const ROW_ATTRIBUTES = { exclude: ['detail'] };
 
-export async function listMembers(revisionId: number, q: z.output<typeof memberQuerySchema>): Promise<MemberPage> {
-  const where = memberWhere(revisionId, q);
-  const { rows, count } = await MemberModel.findAndCountAll({
-    where,
-    order: memberOrder(q),
-    limit: q.pageSize,
-    offset: (q.page - 1) * q.pageSize,
-    attributes: ROW_ATTRIBUTES,
-  });
-  return { total: count, page: q.page, pageSize: q.pageSize, members: rows.map(presentMemberRow) };
+/** One page of the member table, served from the revision's in-memory copy (member-table-cache.ts). */
+export async function listMembers(revision: Pick<RevisionModel, 'id' | 'resultsVersion'>, q: z.output<typeof memberQuerySchema>): Promise<MemberPage> {
+  return cachedMemberPage(revision.id, revision.resultsVersion, q);
 }
 
 export async function findMember(revisionId: number, globalId: string): Promise<MemberModel> {

@@ -11,6 +11,7 @@ import { UserModel } from '../../db/models/user';
 import type { RevisionModel } from '../../db/models/revision';
 import { errors } from '../../http/errors';
 import { recheckMember } from './recheck-member';
+import { bumpResultsVersion } from './results-version';
 
 export const memberSubject = (revisionId: number, globalId: string) => `member:${revisionId}:${globalId}`;
 
@@ -53,6 +54,7 @@ export async function overrideMember(
     member.changed('detail', true);
     const forces = await MemberForceModel.findAll({ where: { memberId: member.id }, transaction, raw: true });
     await recheckMember(member, revision.standard, designForceFrom(forces), transaction);
+    await bumpResultsVersion(revision.id, transaction);
     await AuditEntryModel.create(
       { actorId: user.id, projectId, action: 'member.override', subject: memberSubject(revision.id, globalId), detail: { change }, reason: req.reason },
       { transaction },

@@ -1,0 +1,96 @@
+import type { z } from 'zod';
+import type { memberQuerySchema, MemberPage, MemberSortKey } from '@shared/api/members';
+import { MemberModel } from '../../db/models/member';
+import { presentMemberRow } from './member-presenter';
+import { memberOrder } from './member-query';
+import { pageOf, toTableRow, type TableRow } from './member-table-rows';
+
+type Query = z.output<typeof memberQuerySchema>;
+
+/**
+ * The member table of recently read revisions, held in memory so a page costs a walk over
+ * an array instead of a sort in MariaDB. Each copy is labelled with the revision's
+ * `resultsVersion`, which every request reads from the database anyway; a different
+ * number drops the copy, so all app processes sharing a database see every change.
+ * Sort orders come from MariaDB itself (same collation as before), once per copy and key.
+ */
+interface Entry {
+  version: number;
+  rows: Promise<{ rows: TableRow[]; indexOf: Map<number, number> }>;
+  orders: Map<string, Promise<Int32Array>>;
+  size: number;
+}
+
+/** Rows kept across all revisions (about 1 KB each); least recently used copies go first. */
+const ROW_BUDGET = 250_000;
+const entries = new Map<number, Entry>();
+
+function touch(revisionId: number, entry: Entry): void {
+  entries.delete(revisionId);
+  entries.set(revisionId, entry);
+}
+
+function evict(): void {
+  let total = [...entries.values()].reduce((n, e) => n + e.size, 0);
+  for (const [id, e] of entries) {
+    if (total <= ROW_BUDGET || entries.size <= 1) break;
+    entries.delete(id);
+    total -= e.size;
+  }
+}
+
+async function loadRows(revisionId: number, entry: Entry) {
+  const models = await MemberModel.findAll({ where: { revisionId }, attributes: { exclude: ['detail'] } });
+  const rows = models.map((m) => toTableRow(m.id, presentMemberRow(m)));
+  entry.size = rows.length;
+  evict();
+  return { rows, indexOf: new Map(rows.map((r, i) => [r.id, i])) };
+}
+
+function entryFor(revisionId: number, version: number): Entry {
+  const held = entries.get(revisionId);
+  if (held && held.version === version) {
+    touch(revisionId, held);
+    return held;
+  }
+  const entry: Entry = { version, orders: new Map(), size: 0, rows: undefined as never };
+  entry.rows = loadRows(revisionId, entry);
+  // A failed load must not stay cached.
+  entry.rows.catch(() => entries.get(revisionId) === entry && entries.delete(revisionId));
+  touch(revisionId, entry);
+  return entry;
+}
+
+async function orderFor(revisionId: number, entry: Entry, sort: MemberSortKey, dir: 'asc' | 'desc'): Promise<Int32Array> {
+  const key = `${sort}:${dir}`;
+  let order = entry.orders.get(key);
+  if (!order) {
+    order = (async () => {
+      const { indexOf } = await entry.rows;
+      const ids = (await MemberModel.findAll({
+        where: { revisionId },
+        attributes: ['id'],
+        order: memberOrder({ sort, dir } as Query),
+        raw: true,
+      })) as unknown as { id: number }[];
+      // Members written after the rows were read belong to a newer version; leave them out.
+      const positions = ids.map((r) => indexOf.get(r.id)).filter((i): i is number => i !== undefined);
+      return Int32Array.from(positions);
+    })();
+    order.catch(() => entry.orders.get(key) === order && entry.orders.delete(key));
+    entry.orders.set(key, order);
+  }
+  return order;
+}
+
+/** One page of a revision's member table (filtered, sorted), with the total of matches. */
+export async function cachedMemberPage(revisionId: number, resultsVersion: number, q: Query): Promise<MemberPage> {
+  const entry = entryFor(revisionId, resultsVersion);
+  const [{ rows }, order] = await Promise.all([entry.rows, orderFor(revisionId, entry, q.sort, q.dir)]);
+  return pageOf(rows, order, q);
+}
+
+/** Forgets every copy (tests, and a revision deleted). */
+export function clearMemberTableCache(): void {
+  entries.clear();
+}

@@ -1,0 +1,90 @@
+import type { z } from 'zod';
+import type { memberQuerySchema, MemberPage, MemberRow } from '@shared/api/members';
+
+type Query = z.output<typeof memberQuerySchema>;
+
+/**
+ * One member of the in-memory member table: the row as the API shows it plus the
+ * folded texts filters compare. Folding (NFKD, marks removed, lower case) stands in for
+ * the database's case- and accent-insensitive collation, so a search for "ü" and "U"
+ * finds the same members in memory as it did in SQL.
+ */
+export interface TableRow {
+  id: number;
+  row: MemberRow;
+  inTensionScope: boolean;
+  search: string;
+  ifcClass: string;
+  storey: string;
+  assembly: string;
+  profile: string;
+}
+
+export const fold = (s: string | null | undefined): string =>
+  (s ?? '').normalize('NFKD').replace(/\p{M}/gu, '').toLowerCase();
+
+export function toTableRow(id: number, row: MemberRow): TableRow {
+  return {
+    id,
+    row,
+    // The tension scope: tension members not excluded by hand, and members included by hand.
+    inTensionScope: (row.isTension && row.inclusion !== 'excluded') || row.inclusion === 'included',
+    // A separator no search text can contain keeps matches inside one field.
+    search: [row.globalId, row.tag, row.name, row.profile].map(fold).join('\u0000'),
+    ifcClass: fold(row.ifcClass),
+    storey: fold(row.storey),
+    assembly: fold(row.assembly),
+    profile: fold(row.profile),
+  };
+}
+
+/** The member-table filter (same meaning as the SQL one in member-query.ts) as a predicate. */
+export function tableFilter(q: Query): (r: TableRow) => boolean {
+  const tests: ((r: TableRow) => boolean)[] = [];
+  if (q.scope === 'tension') tests.push((r) => r.inTensionScope);
+  if (q.band?.length) {
+    const bands = new Set<string>(q.band);
+    tests.push((r) => bands.has(r.row.band));
+  }
+  if (q.minUtilisation !== undefined) {
+    const min = q.minUtilisation;
+    tests.push((r) => r.row.utilisation != null && r.row.utilisation >= min);
+  }
+  const equal = (key: 'ifcClass' | 'storey' | 'assembly' | 'profile', value: string | undefined) => {
+    // An empty filter means no filter, as in member-query.ts.
+    if (!value) return;
+    const wanted = fold(value);
+    // As in SQL, a missing value equals nothing, not even an empty filter.
+    const field = key === 'profile' ? 'profile' : key;
+    tests.push((r) => r.row[field] != null && r[key] === wanted);
+  };
+  equal('ifcClass', q.ifcClass);
+  equal('storey', q.storey);
+  equal('assembly', q.assembly);
+  equal('profile', q.profile);
+  if (q.ids) {
+    const ids = new Set(q.ids.split(',').map((s) => s.trim()).filter(Boolean).slice(0, 1000));
+    tests.push((r) => ids.has(r.row.globalId));
+  }
+  if (q.q?.trim()) {
+    const needle = fold(q.q.trim());
+    tests.push((r) => r.search.includes(needle));
+  }
+  return (r) => tests.every((t) => t(r));
+}
+
+/** Walks rows in a precomputed order, counting every match and keeping one page of them. */
+export function pageOf(rows: readonly TableRow[], order: Int32Array, q: Query): MemberPage {
+  const keep = tableFilter(q);
+  const from = (q.page - 1) * q.pageSize;
+  const to = from + q.pageSize;
+  const members: MemberRow[] = [];
+  let total = 0;
+  for (let i = 0; i < order.length; i++) {
+    const r = rows[order[i]];
+    if (!keep(r)) continue;
+    if (total >= from && total < to) members.push(r.row);
+    total++;
+  }
+  return { total, page: q.page, pageSize: q.pageSize, members };
+}
