@@ -7,6 +7,9 @@ import { CautionsBlock, EmptyState, ErrorState, LoadingState, PageHeader, Panel,
 import { useProject } from '../features/projects';
 import { useModels, useRevision, useRevisions } from '../features/models';
 import { ChangesView } from '../features/changes';
+import { ModelView } from '../features/model-view';
+import { useChangeOverlay } from './change-overlay';
+import { useRevisionSelection } from './revision-selection';
 import { positiveId } from './route-ids';
 import { NotFoundPage } from './not-found-page';
 
@@ -32,6 +35,9 @@ function Changes({ projectId, revisionId }: { projectId: number; revisionId: num
   const earlier: Revision[] = r ? (revisions.data ?? []).filter((x) => x.number < r.number && x.status === 'done').sort((a, b) => b.number - a.number) : [];
   const asked = positiveId(search.get('with') ?? undefined);
   const chosen = earlier.find((x) => x.id === asked) ?? earlier[0] ?? null;
+
+  const changeOverlay = useChangeOverlay(projectId, revisionId, chosen, true);
+  const [selection, setSelection] = useRevisionSelection(revisionId);
 
   const title = r ? `What changed in revision ${r.number}` : 'What changed';
   usePageTitle(r ? `${model?.name ?? 'Model'}: ${title.toLowerCase()}` : title);
@@ -75,6 +81,14 @@ function Changes({ projectId, revisionId }: { projectId: number; revisionId: num
               }
             >
               <ChangesView projectId={projectId} revisionId={revisionId} withRevisionId={chosen.id} memberHref={(rid, globalId) => paths.member(projectId, rid, globalId)} />
+            </Panel>
+          )}
+          {r?.status === 'done' && chosen && (
+            <Panel
+              title={`Revision ${r.number} in 3D`}
+              description={`Members coloured by their change since revision ${chosen.number}; unchanged ones faint. Members taken out are listed beside the view.`}
+            >
+              <ModelView projectId={projectId} revisionId={revisionId} selection={selection} onSelectionChange={setSelection} overlay={changeOverlay} height={480} />
             </Panel>
           )}
           <CautionsBlock />

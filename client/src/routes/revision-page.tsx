@@ -14,6 +14,7 @@ import { positiveId } from './route-ids';
 import { rememberLedgerSearch, useRevisionSelection } from './revision-selection';
 import { NotFoundPage } from './not-found-page';
 import { RevisionActions } from './revision-actions';
+import { useChangeOverlay, usePreviousRevision } from './change-overlay';
 
 /**
  * A revision's results: the overview (bands, histogram, most critical), the member
@@ -42,6 +43,7 @@ function RevisionResults({ projectId, revisionId }: { projectId: number; revisio
   const title = r ? `${model?.name ?? 'Model'}, revision ${r.number}` : 'Revision';
   usePageTitle(r ? `${title} results` : 'Revision');
   const memberHref = (globalId: string) => paths.member(projectId, revisionId, globalId);
+  const changeOverlay = useChangeOverlay(projectId, revisionId, usePreviousRevision(projectId, r), false);
 
   return (
     <>
@@ -73,8 +75,11 @@ function RevisionResults({ projectId, revisionId }: { projectId: number; revisio
       )}
       {r && r.status === 'done' && (
         <div className="flex flex-col gap-block">
-          <Panel title="Model" description="Steel coloured by result band. Click a member for its figures; the selection is shared with the ledger.">
-            <ModelView projectId={projectId} revisionId={revisionId} selection={selection} onSelectionChange={setSelection} />
+          <Panel
+            title="Model"
+            description={`Steel coloured by ${changeOverlay?.active ? changeOverlay.label : 'result band'}. Click a member for its figures; the selection is shared with the ledger.`}
+          >
+            <ModelView projectId={projectId} revisionId={revisionId} selection={selection} onSelectionChange={setSelection} overlay={changeOverlay} />
           </Panel>
           <Panel title="Overview" description="Tension members by result band and by utilisation.">
             <RevisionOverviewPanel projectId={projectId} revisionId={revisionId} memberHref={memberHref} />

@@ -11,6 +11,10 @@ import { VIEWS, type ViewName } from '../scene/views';
 import { ModelCanvas, type CameraRequest } from './model-canvas';
 import { ModelLegend } from './legend';
 import { MemberCard, UtilisationText } from './member-card';
+import type { OverlayChoice } from '../scene/member-overlay';
+import { useOverlayView } from '../hooks/use-overlay-view';
+import { ColourBy } from './colour-by';
+import { AbsentMembers, OverlayLegend, OverlayWords } from './overlay-legend';
 
 export interface ModelViewProps {
   projectId: number;
@@ -20,6 +24,8 @@ export interface ModelViewProps {
   onSelectionChange(next: Set<string>): void;
   /** Height of the 3D area in CSS pixels (default 560). */
   height?: number;
+  /** Another way to colour the members, offered under "Colour by" beside the result bands (composed by the page). */
+  overlay?: OverlayChoice;
 }
 
 declare global {
@@ -68,7 +74,7 @@ export function ModelView(props: ModelViewProps) {
 type Section = 'off' | 'height' | 'north-south' | 'east-west';
 const ANY = '';
 
-function LoadedView({ projectId, revisionId, selection, onSelectionChange, height, model, rows, rowsError }: ModelViewProps & { height: number; model: SceneModel; rows: MemberRow[] | undefined; rowsError: unknown }) {
+function LoadedView({ projectId, revisionId, selection, onSelectionChange, height, model, rows, rowsError, overlay }: ModelViewProps & { height: number; model: SceneModel; rows: MemberRow[] | undefined; rowsError: unknown }) {
   const mountedAt = useRef(performance.now());
   const rowOf = useMemo(() => {
     const m = new Map<string, MemberRow>();
@@ -78,17 +84,20 @@ function LoadedView({ projectId, revisionId, selection, onSelectionChange, heigh
   const rowAt = useCallback((i: number) => rowOf.get(model.entries[i].globalId), [rowOf, model]);
   const looks: Look[] = useMemo(() => model.entries.map((e) => (rows ? lookOf(e, rowOf.get(e.globalId)) : e.context ? { kind: 'context' } : { kind: 'not-checked' })), [model, rows, rowOf]);
 
-  // Paint the colour attribute from the bands (the one bandOf + BAND_STYLE pair).
+  // Paint the colour attribute from the bands (the one bandOf + BAND_STYLE pair), or from the page's overlay while it is chosen.
   const [paintVersion, setPaintVersion] = useState(0);
+  const overlayColourAt = useRef<((i: number) => string | null) | null>(null);
+  const [overlayPaint, setOverlayPaint] = useState(0);
   useEffect(() => {
     const palette = new Map<string, THREE.Color>();
     const colourOf = (hex: string) => palette.get(hex) ?? palette.set(hex, new THREE.Color(hex)).get(hex)!;
     model.paint((i) => {
       const look = looks[i];
+      if (overlayColourAt.current) return colourOf(overlayColourAt.current(i) ?? NOT_CHECKED_STYLE.colour);
       return colourOf(look.kind === 'band' ? BAND_STYLE[look.band].colour : NOT_CHECKED_STYLE.colour);
     });
     setPaintVersion((v) => v + 1);
-  }, [model, looks]);
+  }, [model, looks, overlayPaint]);
 
   // Filters
   const [shownBands, setShownBands] = useState<ReadonlySet<ResultBand>>(() => new Set(RESULT_BANDS));
@@ -149,12 +158,23 @@ function LoadedView({ projectId, revisionId, selection, onSelectionChange, heigh
     return { main, ghost: ghost.sort((a, b) => a - b), context, over, counts, unchecked, contextCount };
   }, [looks, rowAt, shownBands, minUtil, ifcClass, storey, assembly, profile, showContext, showUnchecked, isolate, selectedIdx, selectedSet]);
 
+  // While the page's overlay colours the view, its layers replace the band layers.
+  const ov = useOverlayView({ choice: overlay, model, rowAt, filters: { minUtil, ifcClass, storey, assembly, profile }, showRest: showUnchecked, showContext, isolate, selectedSet });
+  const drawn = ov?.layers ?? layers;
+  useEffect(() => {
+    // Repaint only when the colours change, not on every filter change (nor twice on mount).
+    const next = ov ? ov.colourAt : null;
+    if (overlayColourAt.current === next) return;
+    overlayColourAt.current = next;
+    setOverlayPaint((v) => v + 1);
+  }, [ov?.colourAt]);
+
   const pickableFlags = useMemo(() => {
     const f = new Uint8Array(model.entries.length);
-    for (const i of layers.main) f[i] = 1;
-    for (const i of layers.ghost) f[i] = 1;
+    for (const i of drawn.main) f[i] = 1;
+    for (const i of drawn.ghost) f[i] = 1;
     return f;
-  }, [model, layers]);
+  }, [model, drawn]);
   const pickable = useCallback((i: number) => pickableFlags[i] === 1, [pickableFlags]);
 
   // Section plane
@@ -173,9 +193,9 @@ function LoadedView({ projectId, revisionId, selection, onSelectionChange, heigh
   const look = useCallback((view: ViewName) => setCamera({ nonce: ++nonce.current, kind: 'view', view, box: model.bounds }), [model]);
   useEffect(() => look('south-east'), [look]);
   const fit = useCallback(() => {
-    const ids = selectedIdx.length ? selectedIdx : layers.main.length ? layers.main : null;
+    const ids = selectedIdx.length ? selectedIdx : drawn.main.length ? drawn.main : null;
     setCamera({ nonce: ++nonce.current, kind: 'fit', box: ids ? model.boxOf(ids) : model.bounds });
-  }, [selectedIdx, layers.main, model]);
+  }, [selectedIdx, drawn.main, model]);
 
   // Hover and picking
   const [hover, setHover] = useState<{ entry: number; x: number; y: number } | null>(null);
@@ -206,8 +226,8 @@ function LoadedView({ projectId, revisionId, selection, onSelectionChange, heigh
 
   // The next most critical member, for the keyboard and for a quick tour.
   const critical = useMemo(
-    () => layers.main.filter((i) => rowAt(i)?.utilisation != null).sort((a, b) => (rowAt(b)!.utilisation ?? 0) - (rowAt(a)!.utilisation ?? 0)),
-    [layers.main, rowAt],
+    () => drawn.main.filter((i) => rowAt(i)?.utilisation != null).sort((a, b) => (rowAt(b)!.utilisation ?? 0) - (rowAt(a)!.utilisation ?? 0)),
+    [drawn.main, rowAt],
   );
   const tour = useRef(-1);
   const nextCritical = useCallback(() => {
@@ -299,6 +319,7 @@ function LoadedView({ projectId, revisionId, selection, onSelectionChange, heigh
         </div>
       </div>
       <div className="no-print flex flex-wrap items-end gap-x-3 gap-y-2">
+        {overlay && <ColourBy choice={overlay} />}
         <label className="flex flex-col gap-0.5 text-fine text-muted">
           Utilisation at least
           <select className={selectCls} value={minUtil} onChange={(e) => setMinUtil(e.target.value)}>
@@ -343,10 +364,10 @@ function LoadedView({ projectId, revisionId, selection, onSelectionChange, heigh
           <ModelCanvas
             model={model}
             paintVersion={paintVersion}
-            main={layers.main}
-            ghost={layers.ghost}
-            context={layers.context}
-            over={layers.over}
+            main={drawn.main}
+            ghost={drawn.ghost}
+            context={drawn.context}
+            over={drawn.over}
             selected={selectedIdx}
             hover={hover?.entry ?? null}
             clip={clip}
@@ -372,31 +393,50 @@ function LoadedView({ projectId, revisionId, selection, onSelectionChange, heigh
                 <UtilisationText entry={hoverEntry} row={rowAt(hover.entry)} />
               </p>
               {missingReason(hoverEntry, rowAt(hover.entry)) === null ? null : <p className="text-fine text-muted">{hoverEntry.ifcClass}</p>}
+              {ov && !hoverEntry.context && <OverlayWords words={ov.wordsAt(hover.entry)} testId="model-view-hover-words" />}
             </div>
           )}
         </div>
         <aside className="flex w-full shrink-0 flex-col gap-3 lg:w-72" aria-label="Key and picked member">
-          <ModelLegend
-            counts={layers.counts}
-            shownBands={shownBands}
-            onToggleBand={(band) =>
-              setShownBands((prev) => {
-                const next = new Set(prev);
-                if (next.has(band)) next.delete(band);
-                else next.add(band);
-                return next;
-              })
-            }
-            unchecked={{ count: layers.unchecked, shown: showUnchecked, onToggle: () => setShowUnchecked((v) => !v) }}
-            context={{ count: layers.contextCount, shown: showContext, onToggle: () => setShowContext((v) => !v) }}
-          />
+          {ov ? (
+            <OverlayLegend view={ov} rest={{ shown: showUnchecked, onToggle: () => setShowUnchecked((v) => !v) }} context={{ shown: showContext, onToggle: () => setShowContext((v) => !v) }} />
+          ) : (
+            <ModelLegend
+              counts={layers.counts}
+              shownBands={shownBands}
+              onToggleBand={(band) =>
+                setShownBands((prev) => {
+                  const next = new Set(prev);
+                  if (next.has(band)) next.delete(band);
+                  else next.add(band);
+                  return next;
+                })
+              }
+              unchecked={{ count: layers.unchecked, shown: showUnchecked, onToggle: () => setShowUnchecked((v) => !v) }}
+              context={{ count: layers.contextCount, shown: showContext, onToggle: () => setShowContext((v) => !v) }}
+            />
+          )}
+          {ov?.overlay.warnings?.map((w) => (
+            <p key={w} className="text-small text-heed">
+              {w}
+            </p>
+          ))}
           {cardEntry !== null ? (
-            <MemberCard projectId={projectId} revisionId={revisionId} entry={model.entries[cardEntry]} row={rowAt(cardEntry)} />
+            <>
+              <MemberCard projectId={projectId} revisionId={revisionId} entry={model.entries[cardEntry]} row={rowAt(cardEntry)} />
+              {ov && (
+                <section aria-label={ov.overlay.title} className="rounded-card border border-rule bg-card p-3">
+                  <p className="ledger-label">{ov.overlay.title}</p>
+                  <OverlayWords words={ov.wordsAt(cardEntry)} testId="model-view-card-words" />
+                </section>
+              )}
+            </>
           ) : selectedIdx.length > 1 ? (
             <p className="text-small text-muted">{selectedIdx.length} members selected. Shift-click adds or removes one.</p>
           ) : (
             <p className="text-small text-muted">Click a member for its figures; shift-click to select several.</p>
           )}
+          {ov?.overlay.absent && <AbsentMembers absent={ov.overlay.absent} />}
           {rowsError ? <p className="text-small text-fault">The results could not be loaded, so members are not coloured.</p> : null}
         </aside>
       </div>
