@@ -12,7 +12,7 @@ declare global {
   }
 }
 
-export function toSessionUser(user: UserModel): SessionUser {
+export function toSessionUser(user: Pick<UserModel, 'id' | 'email' | 'name' | 'role'>): SessionUser {
   return { id: user.id, email: user.email, name: user.name, role: user.role };
 }
 
@@ -38,7 +38,7 @@ export function configurePassport(): passport.PassportStatic {
   // Re-read the account on every request so role changes and deactivation take effect at once.
   passport.deserializeUser(async (id: number, done) => {
     try {
-      const user = await UserModel.findByPk(id);
+      const user = (await UserModel.findByPk(id, { attributes: ['id', 'email', 'name', 'role', 'active'], raw: true })) as Pick<UserModel, 'id' | 'email' | 'name' | 'role' | 'active'> | null;
       done(null, user && user.active ? toSessionUser(user) : false);
     } catch (err) {
       done(err);

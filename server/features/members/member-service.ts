@@ -27,7 +27,7 @@ export async function findMember(revisionId: number, globalId: string): Promise<
   return member;
 }
 
-export async function memberSheet(revision: RevisionModel, globalId: string): Promise<MemberSheet> {
+export async function memberSheet(revision: Pick<RevisionModel, 'id' | 'number' | 'standard' | 'fileName'>, globalId: string): Promise<MemberSheet> {
   const member = await findMember(revision.id, globalId);
   const [forces, result] = await Promise.all([
     MemberForceModel.findAll({ where: { memberId: member.id }, order: [['source', 'ASC'], ['loadCase', 'ASC']] }),

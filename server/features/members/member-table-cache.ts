@@ -3,7 +3,7 @@ import type { memberQuerySchema, MemberPage, MemberSortKey } from '@shared/api/m
 import { MemberModel } from '../../db/models/member';
 import { presentMemberRow } from './member-presenter';
 import { memberOrder } from './member-query';
-import { pageOf, toTableRow, type TableRow } from './member-table-rows';
+import { filterKey, matchesInOrder, pageOf, toTableRow, type TableRow } from './member-table-rows';
 
 type Query = z.output<typeof memberQuerySchema>;
 
@@ -18,9 +18,13 @@ interface Entry {
   version: number;
   rows: Promise<{ rows: TableRow[]; indexOf: Map<number, number> }>;
   orders: Map<string, Promise<Int32Array>>;
+  /** Matches of recent filters in recent orders: paging through one filter costs a slice. */
+  matches: Map<string, Int32Array>;
   size: number;
 }
 
+/** Filtered orders kept per revision (each at most 4 bytes per member). */
+const MATCH_SETS = 64;
 /** Rows kept across all revisions (about 1 KB each); least recently used copies go first. */
 const ROW_BUDGET = 250_000;
 const entries = new Map<number, Entry>();
@@ -53,7 +57,7 @@ function entryFor(revisionId: number, version: number): Entry {
     touch(revisionId, held);
     return held;
   }
-  const entry: Entry = { version, orders: new Map(), size: 0, rows: undefined as never };
+  const entry: Entry = { version, orders: new Map(), matches: new Map(), size: 0, rows: undefined as never };
   entry.rows = loadRows(revisionId, entry);
   // A failed load must not stay cached.
   entry.rows.catch(() => entries.get(revisionId) === entry && entries.delete(revisionId));
@@ -87,7 +91,13 @@ async function orderFor(revisionId: number, entry: Entry, sort: MemberSortKey, d
 export async function cachedMemberPage(revisionId: number, resultsVersion: number, q: Query): Promise<MemberPage> {
   const entry = entryFor(revisionId, resultsVersion);
   const [{ rows }, order] = await Promise.all([entry.rows, orderFor(revisionId, entry, q.sort, q.dir)]);
-  return pageOf(rows, order, q);
+  const key = `${q.sort}:${q.dir}:${filterKey(q)}`;
+  let matches = entry.matches.get(key);
+  if (matches) entry.matches.delete(key);
+  else matches = matchesInOrder(rows, order, q);
+  entry.matches.set(key, matches);
+  if (entry.matches.size > MATCH_SETS) entry.matches.delete(entry.matches.keys().next().value!);
+  return pageOf(rows, matches, q);
 }
 
 /** Forgets every copy (tests, and a revision deleted). */

@@ -73,18 +73,23 @@ export function tableFilter(q: Query): (r: TableRow) => boolean {
   return (r) => tests.every((t) => t(r));
 }
 
-/** Walks rows in a precomputed order, counting every match and keeping one page of them. */
-export function pageOf(rows: readonly TableRow[], order: Int32Array, q: Query): MemberPage {
+/** The filter part of a query as a stable key (sort, direction and paging left out). */
+export function filterKey(q: Query): string {
+  return JSON.stringify([q.scope, q.band ?? null, q.minUtilisation ?? null, q.ifcClass ?? '', q.storey ?? '', q.assembly ?? '', q.profile ?? '', q.ids ?? '', q.q?.trim() ?? '']);
+}
+
+/** Positions (into rows) of every row the query's filter keeps, in the given order. */
+export function matchesInOrder(rows: readonly TableRow[], order: Int32Array, q: Query): Int32Array {
   const keep = tableFilter(q);
+  const out = new Int32Array(order.length);
+  let n = 0;
+  for (let i = 0; i < order.length; i++) if (keep(rows[order[i]])) out[n++] = order[i];
+  return out.slice(0, n);
+}
+
+/** One page of the matches. */
+export function pageOf(rows: readonly TableRow[], matches: Int32Array, q: Query): MemberPage {
   const from = (q.page - 1) * q.pageSize;
-  const to = from + q.pageSize;
-  const members: MemberRow[] = [];
-  let total = 0;
-  for (let i = 0; i < order.length; i++) {
-    const r = rows[order[i]];
-    if (!keep(r)) continue;
-    if (total >= from && total < to) members.push(r.row);
-    total++;
-  }
-  return { total, page: q.page, pageSize: q.pageSize, members };
+  const members = Array.from(matches.subarray(Math.min(from, matches.length), Math.min(from + q.pageSize, matches.length)), (i) => rows[i].row);
+  return { total: matches.length, page: q.page, pageSize: q.pageSize, members };
 }
