@@ -5,17 +5,17 @@
  */
 import type { ModelContext } from './model-context.ts';
 import { IDENTITY, type Mat4, cross, dot, fromAxes, multiply, normalize, scaleTranslation, sub } from './mat4.ts';
-import { num, numList, ref } from './step-values.ts';
+import { num, ref } from './step-values.ts';
 import type { Vec3 } from './types.ts';
 
 export function pointMm(ctx: ModelContext, id: number | undefined): Vec3 {
-  const c = numList(ctx.line(id)?.Coordinates);
+  const c = ctx.numbers(id, 'point');
   const s = ctx.units.lengthToMm;
   return [(c[0] ?? 0) * s, (c[1] ?? 0) * s, (c[2] ?? 0) * s];
 }
 
 export function direction(ctx: ModelContext, id: number | undefined, fallback: Vec3): Vec3 {
-  const d = numList(ctx.line(id)?.DirectionRatios);
+  const d = ctx.numbers(id, 'direction');
   if (d.length < 2) return fallback;
   const v: Vec3 = [d[0], d[1], d[2] ?? 0];
   return Math.hypot(...v) < 1e-12 ? fallback : normalize(v);

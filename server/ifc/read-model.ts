@@ -13,6 +13,7 @@ import { IfcReadError, isIfcReadError } from './ifc-errors.ts';
 import { extractMember, type MemberWork } from './members.ts';
 import { ModelContext } from './model-context.ts';
 import { openModel } from './open-model.ts';
+import { StepText } from './step-text.ts';
 import { readProfile } from './profiles.ts';
 import { buildRelationsIndex } from './relations-index.ts';
 import { num, str } from './step-values.ts';
@@ -54,21 +55,46 @@ export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {})
   const forceSpecs = options.forcePsetNames?.length ? options.forcePsetNames : DEFAULT_FORCE_PSETS;
   progress('reading', 0);
   const api = await getIfcApi();
+  const tOpen = performance.now();
   const opened = openModel(api, bytes);
+  const tExtract = performance.now();
+  let ctxForStats: ModelContext | null = null;
+  // Phases in CPU time of the process: on a shared machine wall time says more about the neighbours.
+  const phases: Record<string, number> = {};
+  const cpuMs = () => {
+    const u = process.cpuUsage();
+    return (u.user + u.system) / 1000;
+  };
+  let tPhase = options.stats ? cpuMs() : 0;
+  const mark = (name: string) => {
+    if (!options.stats) return;
+    const t = cpuMs();
+    phases[name] = (phases[name] ?? 0) + t - tPhase;
+    tPhase = t;
+  };
   try {
     progress('reading', 1);
-    const ctx = new ModelContext(api, opened.modelID, opened.schema, options.cacheGeneration);
+    // Lines are read from the file's text wherever that gives web-ifc's own line objects
+    // (step-text.ts), unless web-ifc counted other lines than the text shows (a damaged file).
+    const text = options.readLinesWith === 'web-ifc' ? null : StepText.index(bytes, (name) => api.GetTypeCodeFromName(name));
+    const agrees = text !== null && text.size === lineCount(api, opened.modelID);
+    const ctx = new ModelContext(api, opened.modelID, opened.schema, options.cacheGeneration, agrees ? text : null);
+    ctxForStats = ctx;
+    if (options.stats) options.stats.textReader = agrees;
+    mark('text index');
     const projectId = ctx.idsOfType(W.IFCPROJECT)[0];
     if (projectId === undefined) throw new IfcReadError(opened.truncated ? 'ifc.truncated' : 'ifc.no-project');
     ctx.units = readUnits(ctx, projectId);
     if (opened.truncated) ctx.warnings.add('file.truncated', 'The file ends early; only what survived was read.');
     const ix = buildRelationsIndex(ctx);
+    mark('relations');
 
     const memberIds = [...new Set([W.IFCMEMBER, W.IFCBEAM, W.IFCCOLUMN, W.IFCPLATE].flatMap((t) => ctx.idsOfType(t, true)))].sort((a, b) => a - b);
     const fasteners = fastenerIds(ctx);
     const total = memberIds.length + fasteners.length + 1;
     const works: MemberWork[] = [];
     let done = 0;
+    mark('lists');
     for (const id of memberIds) {
       try {
         const w = extractMember(ctx, ix, id, forceSpecs);
@@ -81,6 +107,7 @@ export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {})
         await yieldToLoop();
       }
     }
+    mark('members');
     const bolts: BoltWork[] = [];
     for (const id of fasteners) {
       const b = extractBoltGroup(ctx, ix, id);
@@ -91,13 +118,16 @@ export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {})
         await yieldToLoop();
       }
     }
+    mark('bolt groups');
     associateBolts(ctx, ix, works, bolts);
+    mark('bolt association');
     const analysisMembers = extractAnalysisMembers(ctx, ix);
     applyAnalysisForces(works, analysisMembers);
     progress('extracting', 1);
 
+    mark('analysis');
     const project = ctx.line(projectId);
-    return {
+    const model: ExtractedModel = {
       schema: opened.schema,
       schemaIdentifier: opened.schemaIdentifier,
       units: ctx.units,
@@ -111,15 +141,32 @@ export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {})
       warnings: ctx.warnings.list(),
       counts: countClasses(ctx),
     };
+    mark('profiles, counts, sorting');
+    return model;
   } catch (e) {
     if (isIfcReadError(e)) throw e;
     throw new IfcReadError('ifc.parse-failed', e instanceof Error ? e.message : String(e), { cause: e });
   } finally {
+    if (options.stats) {
+      options.stats.openMs = tExtract - tOpen;
+      options.stats.extractMs = performance.now() - tExtract;
+      options.stats.linesRead = ctxForStats?.linesRead ?? 0;
+      options.stats.linesFromWebIfc = ctxForStats?.linesFromWebIfc ?? 0;
+      options.stats.phases = phases;
+    }
     try {
       api.CloseModel(opened.modelID);
     } catch {
       // Closing a half-opened model can throw; nothing else to release.
     }
+  }
+}
+
+function lineCount(api: W.IfcAPI, modelID: number): number {
+  try {
+    return api.GetAllLines(modelID).size();
+  } catch {
+    return -1;
   }
 }
 

@@ -25,6 +25,29 @@ export interface ReadOptions {
   forcePsetNames?: ForcePsetSpec[];
   /** Lines per generation of the bounded line cache (tests make it tiny to exercise eviction). */
   cacheGeneration?: number;
+  /**
+   * 'text' (default): lines come from the file's text where that gives web-ifc's own line
+   * objects, else from web-ifc; 'web-ifc': every line through web-ifc's GetLine (tests compare the two).
+   */
+  readLinesWith?: 'text' | 'web-ifc';
+  /** Filled in by readIfcModel when given: where the time went, for benchmarks. */
+  stats?: ReadStats;
+}
+
+/** Counters of one read (benchmarks and tests; not part of the extracted model). */
+export interface ReadStats {
+  /** web-ifc OpenModel, ms. */
+  openMs: number;
+  /** Everything after opening until the model is returned, ms. */
+  extractMs: number;
+  /** Lines handed to the extractors (cache misses). */
+  linesRead: number;
+  /** The file's text was indexed and web-ifc counted the same lines, so lines came from the text. */
+  textReader?: boolean;
+  /** Of those, lines read through web-ifc's GetLine. */
+  linesFromWebIfc: number;
+  /** CPU ms of the process per phase of the extraction. */
+  phases?: Record<string, number>;
 }
 
 export interface UnitsInfo {

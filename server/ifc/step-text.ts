@@ -1,0 +1,470 @@
+/**
+ * Reads entity lines straight from the STEP text of the file, in the raw form web-ifc's wasm
+ * hands to its own line constructors (FromRawLineData), so the line objects the extractors see
+ * are the same objects web-ifc's GetLine builds — without its per-line cost. GetLine spends
+ * about 7 µs per line inside the wasm and its JavaScript bindings; building the object from
+ * raw arguments costs about 0.5 µs, and tokenising one line here about as much.
+ *
+ * web-ifc still opens the file (it is the validator: a line web-ifc does not know is not read
+ * here either, see ModelContext) and stays the reader of every line this tokeniser does not
+ * handle exactly like web-ifc: strings with escapes or bytes above 127, comments inside a
+ * line, complex entity instances, duplicate ids, a statement cut off by the end of the file.
+ * For those, raw() answers DEFER and the caller asks web-ifc.
+ *
+ * The index is one pass over the bytes: the offset of every `#id=` statement, by express id.
+ */
+
+/** raw() cannot read this line exactly as web-ifc would; ask web-ifc. */
+export const DEFER = Symbol('defer');
+
+/** The raw line as web-ifc's wasm returns it: arguments as {type, value} tokens. */
+export interface RawLine {
+  ID: number;
+  type: number;
+  arguments: unknown[];
+}
+
+// Token kinds of web-ifc's tape (the `type` of a raw argument).
+const STRING = 1;
+const LABEL = 2; // typed value, e.g. IFCLABEL('x'), with its type code
+const ENUM = 3;
+const REAL = 4;
+const REF = 5;
+const INTEGER = 10;
+
+const HASH = 0x23;
+const EQ = 0x3d;
+const SEMI = 0x3b;
+const QUOTE = 0x27;
+const SLASH = 0x2f;
+const STAR = 0x2a;
+const LPAREN = 0x28;
+const RPAREN = 0x29;
+const COMMA = 0x2c;
+const DOLLAR = 0x24;
+const DOT = 0x2e;
+const BACKSLASH = 0x5c;
+
+const NO_OFFSET = 0;
+const DEFERRED = 0xffffffff;
+/** Ids above this (or above the file length) go into a Map instead of the offset array. */
+const DENSE_LIMIT = 64_000_000;
+
+const MAX_EXACT = 2 ** 53;
+const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+
+class Defer extends Error {}
+const defer = new Defer('defer');
+/** Marks an omitted ('*', derived) argument, which web-ifc leaves out of the raw arguments. */
+const OMITTED = Symbol('omitted');
+
+function isSpace(c: number): boolean {
+  return c === 0x20 || c === 0x0a || c === 0x0d || c === 0x09;
+}
+
+function isDigit(c: number): boolean {
+  return c >= 0x30 && c <= 0x39;
+}
+
+export class StepText {
+  /** Offset + 1 of the entity name after `#id=`; 0 when absent; DEFERRED when web-ifc must read it. */
+  private offsets: Uint32Array;
+  private sparse = new Map<number, number>();
+  private readonly text: Buffer;
+  private pos = 0;
+  private readonly typeCodes = new Map<string, number>();
+
+  private constructor(
+    private readonly bytes: Uint8Array,
+    offsets: Uint32Array,
+    /** Type code of an entity or type name in capitals (web-ifc's GetTypeCodeFromName); 0 when unknown. */
+    private readonly codeOf: (name: string) => number,
+  ) {
+    this.offsets = offsets;
+    this.text = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  }
+
+  /** One pass over the bytes: where each `#id=` statement starts. */
+  static index(bytes: Uint8Array, codeOf: (name: string) => number): StepText {
+    const self = new StepText(bytes, new Uint32Array(1024), codeOf);
+    self.scan();
+    return self;
+  }
+
+  /** Distinct express ids found in the text. */
+  size = 0;
+
+  /** offset null: the statement is there but web-ifc must read it. */
+  private record(id: number, offset: number | null): void {
+    const dense = id < DENSE_LIMIT && id <= this.bytes.length;
+    if (dense && id >= this.offsets.length) {
+      let len = this.offsets.length;
+      while (len <= id) len *= 2;
+      const grown = new Uint32Array(Math.min(len, DENSE_LIMIT));
+      grown.set(this.offsets);
+      this.offsets = grown;
+    }
+    const previous = dense ? this.offsets[id] : (this.sparse.get(id) ?? NO_OFFSET);
+    if (previous === NO_OFFSET) this.size++;
+    // A repeated id is read the way web-ifc reads it, whichever that is.
+    const value = previous !== NO_OFFSET || offset === null || offset + 1 >= DEFERRED ? DEFERRED : offset + 1;
+    if (dense) this.offsets[id] = value;
+    else this.sparse.set(id, value);
+  }
+
+  private scan(): void {
+    const b = this.bytes;
+    const n = b.length;
+    let i = 0;
+    while (i < n) {
+      // Start of a statement: skip blanks and comments.
+      let c = b[i];
+      while (i < n && (isSpace(c) || (c === SLASH && b[i + 1] === STAR))) {
+        if (c === SLASH) {
+          i += 2;
+          while (i < n && !(b[i] === STAR && b[i + 1] === SLASH)) i++;
+          i += 2;
+        } else i++;
+        c = b[i];
+      }
+      if (i >= n) break;
+      let id = -1;
+      let start = -1;
+      if (c === HASH) {
+        let j = i + 1;
+        let v = 0;
+        while (j < n && isDigit(b[j])) v = v * 10 + (b[j++] - 0x30);
+        if (j > i + 1) {
+          while (j < n && isSpace(b[j])) j++;
+          if (b[j] === EQ) {
+            j++;
+            while (j < n && isSpace(b[j])) j++;
+            id = v;
+            start = j;
+            i = j;
+          }
+        }
+      }
+      // To the end of the statement: a ';' outside strings.
+      let clean = true;
+      for (; i < n; i++) {
+        c = b[i];
+        if (c === SEMI) break;
+        if (c === QUOTE) {
+          i++;
+          while (i < n && b[i] !== QUOTE) i++;
+        } else if (c === SLASH && b[i + 1] === STAR) {
+          clean = false;
+          i += 2;
+          while (i < n && !(b[i] === STAR && b[i + 1] === SLASH)) i++;
+          i++;
+        }
+      }
+      if (id >= 0) {
+        if (clean && i < n) this.record(id, start);
+        else this.record(id, null); // cut off by the end of the file, or holds a comment
+      }
+      i++;
+    }
+  }
+
+  private offsetOf(id: number): number {
+    return id < this.offsets.length ? this.offsets[id] : (this.sparse.get(id) ?? NO_OFFSET);
+  }
+
+  /** The raw line; null when the text has no such id; DEFER when web-ifc must read it. */
+  raw(id: number): RawLine | null | typeof DEFER {
+    const off = this.offsetOf(id);
+    if (off === NO_OFFSET) return null;
+    if (off === DEFERRED) return DEFER;
+    this.pos = off - 1;
+    try {
+      const name = this.name();
+      if (this.bytes[this.pos] !== LPAREN) return DEFER;
+      const type = this.code(name);
+      if (type === 0) return DEFER;
+      const args = this.list(true);
+      this.end();
+      return { ID: id, type, arguments: args };
+    } catch (e) {
+      if (e === defer) return DEFER;
+      throw e;
+    }
+  }
+
+  /**
+   * The numbers of a one-list line such as IFCCARTESIANPOINT((0.,5.,2.5)) or IFCDIRECTION(...),
+   * without building a line object: the hot path of placements. `name` is the entity name as
+   * written in capitals; any other name or shape of line answers DEFER (read the line instead).
+   * The numbers equal web-ifc's (it parses each with parseFloat).
+   */
+  reals(id: number, name: Uint8Array): number[] | null | typeof DEFER {
+    const off = this.offsetOf(id);
+    if (off === NO_OFFSET) return null;
+    if (off === DEFERRED) return DEFER;
+    const b = this.bytes;
+    let i = off - 1;
+    for (let k = 0; k < name.length; k++, i++) if (b[i] !== name[k]) return DEFER;
+    while (isSpace(b[i])) i++;
+    if (b[i++] !== LPAREN) return DEFER;
+    while (isSpace(b[i])) i++;
+    if (b[i++] !== LPAREN) return DEFER;
+    const out: number[] = [];
+    for (;;) {
+      while (isSpace(b[i])) i++;
+      const v = this.real(i);
+      if (v === null) return DEFER;
+      out.push(v);
+      i = this.pos;
+      while (isSpace(b[i])) i++;
+      const c = b[i++];
+      if (c === RPAREN) break;
+      if (c !== COMMA) return DEFER;
+    }
+    while (isSpace(b[i])) i++;
+    if (b[i++] !== RPAREN) return DEFER;
+    this.pos = i;
+    try {
+      this.end();
+    } catch {
+      return DEFER;
+    }
+    return out;
+  }
+
+  /**
+   * A number starting at i, as parseFloat reads its text; null when it is not a plain number.
+   * While the digits as an integer stay within 2^53 (exact in a double, and so was every step of
+   * accumulating them) and the power of ten within 10^22 (also exact), one multiplication or
+   * division gives the correctly rounded value, which is what parseFloat returns; other
+   * numbers go through parseFloat itself.
+   */
+  private real(i: number): number | null {
+    const b = this.bytes;
+    const s = i;
+    let negative = false;
+    if (b[i] === 0x2d) {
+      negative = true;
+      i++;
+    } else if (b[i] === 0x2b) return null;
+    let mantissa = 0;
+    let scale = 0;
+    const intStart = i;
+    while (isDigit(b[i])) mantissa = mantissa * 10 + (b[i++] - 0x30);
+    if (i === intStart) return null;
+    if (b[i] === DOT) {
+      i++;
+      while (isDigit(b[i])) {
+        mantissa = mantissa * 10 + (b[i++] - 0x30);
+        scale--;
+      }
+    }
+    let exp = 0;
+    if (b[i] === 0x45 || b[i] === 0x65) {
+      i++;
+      let eNeg = false;
+      if (b[i] === 0x2d || b[i] === 0x2b) eNeg = b[i++] === 0x2d;
+      const e0 = i;
+      while (isDigit(b[i])) exp = exp * 10 + (b[i++] - 0x30);
+      if (i === e0 || i - e0 > 4) return null;
+      if (eNeg) exp = -exp;
+    }
+    this.pos = i;
+    const e10 = scale + exp;
+    let v: number;
+    if (mantissa <= MAX_EXACT && e10 >= -22 && e10 <= 22) v = e10 >= 0 ? mantissa * POW10[e10] : mantissa / POW10[-e10];
+    else return parseFloat(this.text.toString('latin1', s, i));
+    return negative ? -v : v;
+  }
+
+  /** After an entity's argument list: blanks, then the ';' that ends the statement. */
+  private end(): void {
+    this.skipSpace();
+    if (this.bytes[this.pos] !== SEMI) throw defer;
+  }
+
+  private code(name: string): number {
+    let c = this.typeCodes.get(name);
+    if (c === undefined) {
+      c = this.codeOf(name);
+      this.typeCodes.set(name, c);
+    }
+    return c;
+  }
+
+  /** An entity or type name (letters, digits, '_') as written (web-ifc's type code is of that spelling); blanks after it skipped. */
+  private name(): string {
+    const b = this.bytes;
+    const s = this.pos;
+    let i = s;
+    for (;;) {
+      const c = b[i];
+      if ((c >= 0x41 && c <= 0x5a) || (c >= 0x61 && c <= 0x7a) || isDigit(c) || c === 0x5f) i++;
+      else break;
+    }
+    if (i === s) throw defer;
+    const name = this.text.toString('latin1', s, i);
+    while (isSpace(b[i])) i++;
+    this.pos = i;
+    return name;
+  }
+
+  private skipSpace(): void {
+    const b = this.bytes;
+    while (isSpace(b[this.pos])) this.pos++;
+  }
+
+  /** A parenthesised list; at the top level '*' arguments are left out, as web-ifc does. */
+  private list(top: boolean): unknown[] {
+    const b = this.bytes;
+    this.pos++; // '('
+    const out: unknown[] = [];
+    this.skipSpace();
+    if (b[this.pos] === RPAREN) {
+      this.pos++;
+      return out;
+    }
+    for (;;) {
+      this.skipSpace();
+      const v = this.value();
+      if (v === OMITTED) {
+        if (!top) throw defer;
+      } else out.push(v);
+      this.skipSpace();
+      const c = b[this.pos];
+      if (c === COMMA) this.pos++;
+      else if (c === RPAREN) {
+        this.pos++;
+        return out;
+      } else throw defer;
+    }
+  }
+
+  private value(): unknown {
+    const b = this.bytes;
+    const c = b[this.pos];
+    if (c === DOLLAR) {
+      this.pos++;
+      return null;
+    }
+    if (c === HASH) {
+      this.pos++;
+      const s = this.pos;
+      const v = this.integer();
+      if (this.pos === s) throw defer;
+      return { type: REF, value: v };
+    }
+    if (c === QUOTE) return { type: STRING, value: this.string() };
+    if (c === DOT) {
+      const e = this.enumeration();
+      // web-ifc turns the logical literals into booleans (and .U. into whatever it does: ask it).
+      if (e.length === 1) {
+        if (e === 'T') return { type: ENUM, value: true };
+        if (e === 'F') return { type: ENUM, value: false };
+        throw defer;
+      }
+      return { type: ENUM, value: e };
+    }
+    if (c === LPAREN) return this.list(false);
+    if (isDigit(c) || c === 0x2d || c === 0x2b) return this.number();
+    if (c === STAR) {
+      this.pos++;
+      return OMITTED;
+    }
+    // A typed value such as IFCLABEL('x') or IFCLENGTHMEASURE(2.5).
+    const name = this.name();
+    if (b[this.pos] !== LPAREN) throw defer;
+    this.pos++;
+    this.skipSpace();
+    const inner = this.value();
+    this.skipSpace();
+    if (b[this.pos] !== RPAREN || inner === null || inner === OMITTED || Array.isArray(inner)) throw defer;
+    this.pos++;
+    const typecode = this.code(name);
+    if (typecode === 0) throw defer;
+    return { type: LABEL, typecode, value: (inner as { value: unknown }).value };
+  }
+
+  private integer(): number {
+    const b = this.bytes;
+    let v = 0;
+    let i = this.pos;
+    const s = i;
+    while (isDigit(b[i])) v = v * 10 + (b[i++] - 0x30);
+    // Beyond 2^53 the digits would not survive as a number; let web-ifc decide.
+    if (i - s > 15) throw defer;
+    this.pos = i;
+    return v;
+  }
+
+  /** REAL when it has a '.' or an exponent (its text, as web-ifc keeps it), else INTEGER. */
+  private number(): { type: number; value: number | string } {
+    const b = this.bytes;
+    const s = this.pos;
+    let i = s;
+    // A leading '+' is dropped by web-ifc's tokeniser in some places and kept in others.
+    if (b[i] === 0x2b) throw defer;
+    if (b[i] === 0x2d) i++;
+    const digits = i;
+    while (isDigit(b[i])) i++;
+    if (i === digits) throw defer;
+    let real = false;
+    if (b[i] === DOT) {
+      real = true;
+      i++;
+      while (isDigit(b[i])) i++;
+    }
+    if (b[i] === 0x45 || b[i] === 0x65) {
+      real = true;
+      i++;
+      if (b[i] === 0x2d || b[i] === 0x2b) i++;
+      const e = i;
+      while (isDigit(b[i])) i++;
+      if (i === e) throw defer;
+    }
+    this.pos = i;
+    if (real) return { type: REAL, value: this.text.toString('latin1', s, i) };
+    if (i - digits > 15) throw defer;
+    const v = Number(this.text.toString('latin1', s, i));
+    return { type: INTEGER, value: v };
+  }
+
+  /** A plain string; escapes ('\') and bytes above 127 are left to web-ifc's decoder. */
+  private string(): string {
+    const b = this.bytes;
+    const s = this.pos + 1;
+    let i = s;
+    let doubled = false;
+    for (;;) {
+      const c = b[i];
+      if (c === undefined) throw defer;
+      if (c === QUOTE) {
+        if (b[i + 1] === QUOTE) {
+          doubled = true;
+          i += 2;
+          continue;
+        }
+        break;
+      }
+      if (c === BACKSLASH || c > 0x7e || c < 0x20) throw defer;
+      i++;
+    }
+    this.pos = i + 1;
+    const v = this.text.toString('latin1', s, i);
+    return doubled ? v.replaceAll("''", "'") : v;
+  }
+
+  private enumeration(): string {
+    const b = this.bytes;
+    const s = this.pos + 1;
+    let i = s;
+    while (i < b.length && b[i] !== DOT) {
+      const c = b[i];
+      if (!((c >= 0x41 && c <= 0x5a) || (c >= 0x61 && c <= 0x7a) || isDigit(c) || c === 0x5f)) throw defer;
+      i++;
+    }
+    if (i >= b.length) throw defer;
+    this.pos = i + 1;
+    return this.text.toString('latin1', s, i);
+  }
+}
