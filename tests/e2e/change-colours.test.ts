@@ -1,6 +1,6 @@
 // Colour by change in a real browser (SwiftShader WebGL): two revisions of the demo shed that
 // differ in known ways (one brace taken out and another put in its place, one section renamed,
-// design forces raised on one member and lowered on another); the revision page's 3D view,
+// design forces raised on two members, one of them into the tight band, and lowered on another); the revision page's 3D view,
 // switched to "change since revision 1", draws the change colours (read back from the canvas),
 // names a hovered member's changes in words, lists the taken-out brace beside the view and
 // keeps the cautions; the changes page shows the same view.
@@ -63,8 +63,11 @@ beforeAll(async () => {
   const rows: MemberRow[] = (await engineer.call('get', `/api/projects/${projectId}/revisions/${r1}/members?pageSize=500`)).body.members;
   const withResult = rows.filter((r) => r.utilisation != null && r.globalId !== TAKEN_OUT).sort((a, b) => a.utilisation! - b.utilisation!);
   expect(withResult.length, 'tension members with a result in revision 1').toBeGreaterThan(3);
-  const raised = withResult[0];
+  // The least used member becomes tight (newly critical); the next one only rises; the most used one falls.
+  const critical = withResult[0];
+  const raised = withResult[1];
   const lowered = withResult[withResult.length - 1];
+  expect(raised.utilisation!, 'room to rise without becoming tight').toBeLessThan(0.7);
 
   // Revision 2: the brace replaced, the first flat-bar section renamed, forces raised and lowered.
   let text = SAMPLE.toString('latin1');
@@ -77,13 +80,15 @@ beforeAll(async () => {
   r2 = up.body.revision.id;
   expect(up.body.revision.number).toBe(2);
   expect((await importEnded(engineer, projectId, r2)).body.status).toBe('done');
-  await postForces(r2, scaledForces({ [raised.globalId]: 2.5, [lowered.globalId]: 0.5 }, [TAKEN_OUT]));
+  const factors = { [critical.globalId]: 0.95 / critical.utilisation!, [raised.globalId]: Math.min(1.3, 0.8 / raised.utilisation!), [lowered.globalId]: 0.5 };
+  await postForces(r2, scaledForces(factors, [TAKEN_OUT]));
 
   changes = (await engineer.call('get', `/api/projects/${projectId}/revisions/${r2}/comparison?with=${r1}`)).body.changes;
   const kindsOf = (g: string) => changes.find((c) => c.globalId === g)?.kinds ?? [];
   expect(kindsOf(TAKEN_OUT)).toEqual(['removed']);
   expect(kindsOf(PUT_IN)).toContain('added');
-  expect(kindsOf(raised.globalId)).toEqual(expect.arrayContaining(['force-changed', 'utilisation-up']));
+  expect(kindsOf(critical.globalId)).toEqual(expect.arrayContaining(['force-changed', 'utilisation-up', 'newly-critical']));
+  expect(kindsOf(raised.globalId)).toEqual(['force-changed', 'utilisation-up']);
   expect(kindsOf(lowered.globalId)).toEqual(expect.arrayContaining(['force-changed', 'utilisation-down']));
   expect(changes.some((c) => c.kinds.includes('resized'))).toBe(true);
   mkdirSync(SHOTS, { recursive: true });
@@ -159,10 +164,10 @@ describe('colour by change', () => {
       await page.screenshot({ path: path.join(SHOTS, 'model-view-changes.png'), clip: { x: box.x - 10, y: box.y - 120, width: 1400 - box.x, height: box.height + 180 } });
       console.log(`change-colour pixels after "colour by change": ${JSON.stringify(census.counts)} of ${census.width}×${census.height}`);
       const seen = Object.entries(census.counts).filter(([, n]) => n >= 20).map(([k]) => k);
-      expect(seen.length, JSON.stringify(census.counts)).toBeGreaterThanOrEqual(2);
+      expect(seen.length, JSON.stringify(census.counts)).toBeGreaterThanOrEqual(4);
       for (const k of seen) expect(expectedKinds.has(k as never), `${k} seen but no member is drawn as it`).toBe(true);
       const gained = seen.filter((k) => census.counts[k] > 3 * (before.counts[k] ?? 0) + 20);
-      expect(gained.length, `colours that appeared on switching: ${JSON.stringify(census.counts)} vs ${JSON.stringify(before.counts)}`).toBeGreaterThanOrEqual(2);
+      expect(gained.length, `colours that appeared on switching: ${JSON.stringify(census.counts)} vs ${JSON.stringify(before.counts)}`).toBeGreaterThanOrEqual(4);
 
       // Close up (N fits the most critical drawn member, Escape lets it go), then hover a patch of a
       // change colour: the tooltip says that change in words; a click picks it.

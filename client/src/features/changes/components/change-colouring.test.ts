@@ -59,7 +59,7 @@ describe('changeColouring', () => {
     expect(c.members.get(gid(5))!.words).toEqual(['grade changed: S355 → S275']);
     expect(c.members.get(gid(6))!.words).toEqual(['holes changed']);
     expect(c.members.get(gid(10))!.words).toEqual(['new member']);
-    expect(c.rest.words).toBe('unchanged since revision 1');
+    expect(c.rest.words).toBe('no change found since revision 1');
   });
 
   it('lists taken-out members beside the view instead of colouring them', () => {

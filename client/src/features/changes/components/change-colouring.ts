@@ -66,7 +66,7 @@ export function changeColouring(comparison: Comparison, o: ColouringOptions): Ch
     title: `Change since ${since}`,
     entries: CHANGE_PRECEDENCE.map((k) => ({ id: k, label: CHANGE_WORDS[k].heading, description: CHANGE_WORDS[k].hint, ...CHANGE_STYLE[k] })),
     members,
-    rest: { label: 'unchanged', description: `as in ${since}; drawn faint`, words: `unchanged since ${since}` },
+    rest: { label: 'unchanged', description: `no change found since ${since}; drawn faint`, words: `no change found since ${since}` },
     note: 'A member with several changes takes the colour of the first of them in this list (darker = look sooner); hover or pick it to read every change.',
     absent: { title: `Taken out since ${since}`, empty: `No member of ${since} is missing from this one.`, members: absent },
     warnings: comparison.warnings,
