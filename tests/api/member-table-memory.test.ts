@@ -7,6 +7,8 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { memberQuerySchema, MEMBER_SORT_KEYS, type MemberQuery } from '../../shared/api/members';
 import { MemberModel } from '../../server/db/models/member';
+import { MemberForceModel } from '../../server/db/models/member-force';
+import { CheckResultModel } from '../../server/db/models/check-result';
 import { memberOrder, memberWhere } from '../../server/features/members/member-query';
 import { presentMemberRow } from '../../server/features/members/member-presenter';
 import { startTestApp, type TestApp } from '../support/test-app';
@@ -69,6 +71,23 @@ describe('member table held in memory', () => {
       expect(res.body, JSON.stringify(q)).toEqual(await bySql(q));
     }
   }, 120_000);
+
+  it('reads the member sheet in one join with the same content as reading each table', async () => {
+    const all = (await engineer.call('get', `${base}/members?scope=all&pageSize=500`)).body.members as { globalId: string; utilisation: number | null }[];
+    const picks = [all.find((m) => m.utilisation != null)!, all.find((m) => m.utilisation == null)!, all.at(-1)!];
+    for (const pick of picks) {
+      const sheet = (await engineer.call('get', `${base}/members/${pick.globalId}`)).body;
+      const member = (await MemberModel.findOne({ where: { revisionId, globalId: pick.globalId } }))!;
+      const forces = await MemberForceModel.findAll({ where: { memberId: member.id }, order: [['source', 'ASC'], ['loadCase', 'ASC']] });
+      const result = await CheckResultModel.findOne({ where: { memberId: member.id, standard: sheet.revision.standard } });
+      expect(sheet.member).toEqual(presentMemberRow(member));
+      expect(sheet.detail).toEqual(member.detail);
+      expect(sheet.forces).toEqual(forces.map((f) => ({ loadCase: f.loadCase, axialN: f.axialN, source: f.source })));
+      expect(sheet.result).toEqual(result?.result ?? null);
+      expect(sheet.engineVersion).toBe(result?.engineVersion ?? null);
+    }
+    expect((await engineer.call('get', `${base}/members/${'A'.repeat(22)}`)).status).toBe(404);
+  });
 
   it('shows a change made through another app process at the next request', async () => {
     other = await spawnApp(sharedEnvOf(app.server.config));

@@ -1,4 +1,4 @@
-import { fn, col, type WhereOptions } from 'sequelize';
+import { fn, col, QueryTypes, type WhereOptions } from 'sequelize';
 import type { z } from 'zod';
 import type { memberQuerySchema, MemberPage } from '@shared/api/members';
 import type { MemberSheet, RevisionOverview } from '@shared/api/member-sheet';
@@ -6,8 +6,6 @@ import type { MemberDetail } from '@shared/api/member-detail';
 import { RESULT_BANDS, type ResultBand } from '@shared/api/results';
 import { CAUTIONS } from '@shared/api/cautions';
 import { MemberModel } from '../../db/models/member';
-import { MemberForceModel } from '../../db/models/member-force';
-import { CheckResultModel } from '../../db/models/check-result';
 import type { RevisionModel } from '../../db/models/revision';
 import { errors } from '../../http/errors';
 import { memberWhere } from './member-query';
@@ -27,19 +25,44 @@ export async function findMember(revisionId: number, globalId: string): Promise<
   return member;
 }
 
+/** Member columns as attribute names, for the sheet's one-query read below. */
+let memberSelect: string | undefined;
+const MEMBER_SELECT = () =>
+  (memberSelect ??= Object.entries(MemberModel.getAttributes() as Record<string, { field?: string }>)
+    .map(([name, a]) => `m.\`${a.field ?? name}\` AS \`${name}\``)
+    .join(', '));
+
+const parseJson = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v);
+
+/**
+ * The member sheet in two queries run side by side: the member with its stored result
+ * (one join), and its forces. The sheet is the busiest read after the table.
+ */
 export async function memberSheet(revision: Pick<RevisionModel, 'id' | 'number' | 'standard' | 'fileName'>, globalId: string): Promise<MemberSheet> {
-  const member = await findMember(revision.id, globalId);
-  const [forces, result] = await Promise.all([
-    MemberForceModel.findAll({ where: { memberId: member.id }, order: [['source', 'ASC'], ['loadCase', 'ASC']] }),
-    CheckResultModel.findOne({ where: { memberId: member.id, standard: revision.standard } }),
+  const sequelize = MemberModel.sequelize!;
+  const [rows, forces] = await Promise.all([
+    sequelize.query<Record<string, unknown>>(
+      `SELECT ${MEMBER_SELECT()}, cr.result AS resultJson, cr.engine_version AS engineVersion FROM members m
+       LEFT JOIN check_results cr ON cr.member_id = m.id AND cr.standard = :standard
+       WHERE m.revision_id = :revisionId AND m.global_id = :globalId LIMIT 1`,
+      { replacements: { standard: revision.standard, revisionId: revision.id, globalId }, type: QueryTypes.SELECT },
+    ),
+    sequelize.query<{ loadCase: string; axialN: number; source: string }>(
+      `SELECT f.load_case AS loadCase, f.axial_n AS axialN, f.source FROM member_forces f JOIN members m ON m.id = f.member_id
+       WHERE m.revision_id = :revisionId AND m.global_id = :globalId ORDER BY f.source ASC, f.load_case ASC`,
+      { replacements: { revisionId: revision.id, globalId }, type: QueryTypes.SELECT },
+    ),
   ]);
+  const row = rows[0];
+  if (!row) throw errors.notFound('That member');
+  const member = MemberModel.build({ ...row, isTension: Boolean(row.isTension), detail: parseJson(row.detail) } as never, { raw: true, isNewRecord: false });
   return {
     revision: { id: revision.id, number: revision.number, standard: revision.standard, fileName: revision.fileName },
     member: presentMemberRow(member),
     detail: member.detail as MemberDetail,
     forces: forces.map((f) => ({ loadCase: f.loadCase, axialN: f.axialN, source: f.source })),
-    result: (result?.result as MemberSheet['result']) ?? null,
-    engineVersion: result?.engineVersion ?? null,
+    result: row.resultJson == null ? null : (parseJson(row.resultJson) as MemberSheet['result']),
+    engineVersion: (row.engineVersion as string | null) ?? null,
     cautions: CAUTIONS,
   };
 }
