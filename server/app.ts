@@ -21,6 +21,7 @@ import { sendCriticalRoutes } from './features/mail/send-critical-routes';
 import { compareRoutes } from './features/compare/compare-routes';
 import type { MailService } from './mail/mail-service';
 import { geometryRoutes } from './features/geometry/geometry-routes';
+import { memberColumnsRoutes } from './features/member-columns/member-columns-routes';
 import { exportRoutes } from './features/exports/export-routes';
 
 export interface AppHandle {
@@ -81,6 +82,7 @@ export function createApp(config: AppConfig, sequelize: Sequelize, logger: Logge
   api.use('/projects/:projectId/revisions/:revisionId/send-critical', sendCriticalRoutes(config, services.mail));
   api.use('/projects/:projectId/revisions/:revisionId/exports', exportRoutes(sequelize, services.store));
   api.use('/projects/:projectId/revisions/:revisionId/geometry', geometryRoutes(services.store));
+  api.use('/projects/:projectId/revisions/:revisionId/member-columns', memberColumnsRoutes());
   api.use('/projects/:projectId/revisions/:revisionId', memberRoutes(sequelize));
   api.use('/projects/:projectId', modelRoutes(sequelize, config, services.store, services.onImportQueued));
   api.use('/projects', projectRoutes(sequelize));

@@ -53,6 +53,7 @@ const PROBES: Probe[] = [
   { name: 'member override', method: 'patch', url: (s) => `${rev(s)}/members/${s.globalId}/overrides`, body: { designForceN: 1, reason: 'taken over' } },
   { name: 'forces', method: 'post', url: (s) => `${rev(s)}/forces`, body: { csv: 'GlobalId,LoadCase,N [kN]\n' } },
   { name: 'geometry', method: 'get', url: (s) => `${rev(s)}/geometry` },
+  { name: 'member columns', method: 'get', url: (s) => `${rev(s)}/member-columns` },
   { name: 'CSV export', method: 'get', url: (s) => `${rev(s)}/exports/csv` },
   { name: 'workbook export', method: 'get', url: (s) => `${rev(s)}/exports/xlsx` },
   { name: 'IFC export', method: 'get', url: (s) => `${rev(s)}/exports/ifc` },

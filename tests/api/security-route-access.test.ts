@@ -129,6 +129,7 @@ const ROUTES: RouteCase[] = [
   },
   { route: `GET ${REV}/exports/:format`, expect: writers(200) },
   { route: `GET ${REV}/geometry`, expect: readers },
+  { route: `GET ${REV}/member-columns`, expect: readers },
   { route: `GET ${REV}/comparison`, path: (i) => `/api/projects/${i.projectId}/revisions/${i.revisionId}/comparison?with=${i.revisionId}`, expect: readers },
   {
     route: `POST ${REV}/send-critical`,

@@ -1,28 +1,18 @@
 import { useQuery } from '@tanstack/react-query';
-import { memberPageSchema, type MemberRow } from '@shared/api';
+import type { MemberRow } from '@shared/api';
+import { decodeMemberColumns, memberColumnsSchema } from '@shared/api/member-columns';
 import { api } from '../../../lib/api-client';
-
-const PAGE_SIZE = 500;
-const PARALLEL = 6;
 
 /** Under the revision's results key, so changes to results (forces, overrides) refresh the colours too. */
 export const allMembersKey = (projectId: number, revisionId: number) => ['results', projectId, revisionId, 'model-view', 'all-members'] as const;
 
-/** Every candidate member of a revision (scope=all), page by page, several pages at a time. */
+/**
+ * Every member of a revision (the member table's rows, all candidates) in one compact answer:
+ * GET …/revisions/:id/member-columns. One request instead of dozens of table pages; the server
+ * builds it once per change of results and sends it gzipped.
+ */
 export async function fetchAllMembers(projectId: number, revisionId: number, signal?: AbortSignal): Promise<MemberRow[]> {
-  const page = (n: number) => api.get(`/api/projects/${projectId}/revisions/${revisionId}/members?scope=all&pageSize=${PAGE_SIZE}&page=${n}&sort=globalId&dir=asc`, memberPageSchema, { signal });
-  const first = await page(1);
-  const pages = Math.ceil(first.total / PAGE_SIZE);
-  const rest: MemberRow[][] = new Array(Math.max(0, pages - 1));
-  let next = 2;
-  const worker = async () => {
-    while (next <= pages) {
-      const n = next++;
-      rest[n - 2] = (await page(n)).members;
-    }
-  };
-  await Promise.all(Array.from({ length: Math.min(PARALLEL, pages - 1) }, worker));
-  return [...first.members, ...rest.flat()];
+  return decodeMemberColumns(await api.get(`/api/projects/${projectId}/revisions/${revisionId}/member-columns`, memberColumnsSchema, { signal }));
 }
 
 export function useAllMembers(projectId: number, revisionId: number) {
