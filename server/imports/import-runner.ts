@@ -19,7 +19,7 @@ import { storeOutcome } from './store-outcome';
 import type { ImportOutcome, ImportTask, ProgressMessage } from './run-import-task';
 import type { GeometryOutcome, GeometryTask } from './run-geometry-task';
 import type { RevisionSummary } from '@shared/api/models';
-import { geometryKey } from '../features/geometry/geometry-key';
+import { geometryGzipKey, geometryKey } from '../features/geometry/geometry-key';
 
 /**
  * Runs import jobs in worker threads, never on the request thread. Jobs are claimed
@@ -166,6 +166,11 @@ export class ImportRunner {
       const out: GeometryOutcome = await this.pool.run(task, { signal: AbortSignal.timeout(this.config.imports.timeLimitMs) });
       problem = out.problem;
       if (out.geometry) {
+        // The gzipped copy first: once the plain file exists the view may be served, and then in either form.
+        if (out.gzipped) {
+          await fsp.writeFile(tmp, out.gzipped);
+          await this.store.put(geometryGzipKey(job.id), tmp);
+        }
         await fsp.writeFile(tmp, out.geometry);
         await this.store.put(geometryKey(job.id), tmp);
         status = 'ready';

@@ -1,3 +1,4 @@
+import { gzipSync } from 'node:zlib';
 import { transferableSymbol, valueSymbol, move } from 'piscina';
 import { buildDisplayGeometry } from '../ifc/display-geometry';
 import { readUploadBytes } from './read-upload-bytes';
@@ -13,6 +14,8 @@ export interface GeometryTask {
 
 export interface GeometryOutcome {
   geometry: Uint8Array | null;
+  /** The same file gzipped once here, so the server can send it compressed without spending its own time on it. */
+  gzipped: Uint8Array | null;
   /** Why the view is partial or missing; null when complete. */
   problem: string | null;
   elapsedMs: number;
@@ -29,13 +32,14 @@ export async function runGeometryTask(task: GeometryTask): Promise<GeometryOutco
     const bytes = await readUploadBytes(task.filePath, task.kind, task.inflateLimitBytes);
     const built = await buildDisplayGeometry(bytes, { timeBudgetMs: task.timeBudgetMs });
     const problem = built.stats.skipped ? `partial: ${built.stats.skipped} of ${built.stats.elements} elements left out after ${Math.round(task.timeBudgetMs / 1000)} s` : null;
-    outcome = { geometry: built.bytes, problem, elapsedMs: performance.now() - started };
+    const gzipped = built.bytes ? gzipSync(built.bytes) : null;
+    outcome = { geometry: built.bytes, gzipped, problem, elapsedMs: performance.now() - started };
   } catch (err) {
-    return { geometry: null, problem: err instanceof Error ? err.message : String(err), elapsedMs: performance.now() - started };
+    return { geometry: null, gzipped: null, problem: err instanceof Error ? err.message : String(err), elapsedMs: performance.now() - started };
   }
   if (!outcome.geometry) return outcome;
   // Move the bytes to the main thread instead of copying them.
-  Object.defineProperty(outcome, transferableSymbol, { value: [outcome.geometry.buffer] });
+  Object.defineProperty(outcome, transferableSymbol, { value: [outcome.geometry.buffer, ...(outcome.gzipped ? [outcome.gzipped.buffer] : [])] });
   Object.defineProperty(outcome, valueSymbol, { value: { ...outcome } });
   return move(outcome as never) as unknown as GeometryOutcome;
 }

@@ -1,8 +1,10 @@
 // Display geometry of a revision: prepared during the import, served to any project member
-// with a strong ETag and a year of private caching, 304 on If-None-Match, 404 elsewhere.
+// with a strong ETag and a year of private caching, 304 on If-None-Match, 404 elsewhere;
+// gzipped (a copy made once) for clients that take gzip.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
+import { gunzipSync } from 'node:zlib';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type request from 'supertest';
@@ -48,7 +50,8 @@ afterAll(async () => {
 
 describe('GET …/revisions/:revisionId/geometry', () => {
   it('serves the display geometry with a strong ETag and long private caching', async () => {
-    const res = await binary(viewer.agent.get(`${base}/geometry`));
+    const res = await binary(viewer.agent.get(`${base}/geometry`).set('Accept-Encoding', 'identity'));
+    expect(res.headers['content-encoding']).toBeUndefined();
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^application\/octet-stream/);
     expect(res.headers['cache-control']).toBe('private, max-age=31536000, immutable');
@@ -61,6 +64,46 @@ describe('GET …/revisions/:revisionId/geometry', () => {
     const ids = new Set(g.header.entries.map((e) => e.globalId));
     expect(members.length).toBeGreaterThan(5);
     for (const m of members) expect(ids.has(m.globalId), m.globalId).toBe(true);
+  });
+
+  it('sends the copy gzipped at import time to clients that take gzip, with its own strong ETag', async () => {
+    const stored = path.join(root, '.test-data', app.dbName, 'uploads/store/geometry', `${revisionId}-v1.bin`);
+    const plain = readFileSync(stored);
+    const gzipped = readFileSync(`${stored}.gz`);
+    expect(gunzipSync(gzipped).equals(plain)).toBe(true);
+    expect(gzipped.length).toBeLessThan(plain.length / 2);
+    // supertest unzips on arrival: the body is the plain file; the headers say what was sent.
+    const res = await binary(viewer.agent.get(`${base}/geometry`).set('Accept-Encoding', 'gzip, deflate, br'));
+    expect(res.status).toBe(200);
+    expect(res.headers['content-encoding']).toBe('gzip');
+    expect(res.headers.vary).toMatch(/Accept-Encoding/);
+    expect(Number(res.headers['content-length'])).toBe(gzipped.length);
+    expect((res.body as Buffer).equals(plain)).toBe(true);
+    const etag = res.headers.etag as string;
+    expect(etag).toBe(`"${createHash('sha256').update(gzipped).digest('base64url')}"`);
+    expect((await viewer.agent.get(`${base}/geometry`).set('Accept-Encoding', 'gzip').set('If-None-Match', etag)).status).toBe(304);
+    // The plain file's ETag does not stand for the gzipped one.
+    const plainEtag = `"${createHash('sha256').update(plain).digest('base64url')}"`;
+    expect((await binary(viewer.agent.get(`${base}/geometry`).set('Accept-Encoding', 'gzip').set('If-None-Match', plainEtag))).status).toBe(200);
+  });
+
+  it('makes the gzipped copy when a revision has none, sending the plain file meanwhile', async () => {
+    const stored = path.join(root, '.test-data', app.dbName, 'uploads/store/geometry', `${revisionId}-v1.bin`);
+    const { renameSync, existsSync, rmSync } = await import('node:fs');
+    renameSync(`${stored}.gz`, `${stored}.gz.before`);
+    try {
+      const first = await binary(viewer.agent.get(`${base}/geometry`).set('Accept-Encoding', 'gzip'));
+      expect(first.status).toBe(200);
+      expect(first.headers['content-encoding']).toBeUndefined();
+      expect((first.body as Buffer).equals(readFileSync(stored))).toBe(true);
+      await waitFor(async () => existsSync(`${stored}.gz`), (made) => made, 30_000, 100);
+      const made = await binary(viewer.agent.get(`${base}/geometry`).set('Accept-Encoding', 'gzip'));
+      expect(made.headers['content-encoding']).toBe('gzip');
+      expect((made.body as Buffer).equals(readFileSync(stored))).toBe(true);
+    } finally {
+      rmSync(`${stored}.gz`, { force: true });
+      renameSync(`${stored}.gz.before`, `${stored}.gz`);
+    }
   });
 
   it('answers 304 when the ETag matches, and 200 again when it does not', async () => {
