@@ -1,4 +1,5 @@
 import passport from 'passport';
+import { QueryTypes } from 'sequelize';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { UserModel } from '../db/models/user';
 import { decoyPasswordHash, verifyPassword } from './passwords';
@@ -38,7 +39,11 @@ export function configurePassport(): passport.PassportStatic {
   // Re-read the account on every request so role changes and deactivation take effect at once.
   passport.deserializeUser(async (id: number, done) => {
     try {
-      const user = (await UserModel.findByPk(id, { attributes: ['id', 'email', 'name', 'role', 'active'], raw: true })) as Pick<UserModel, 'id' | 'email' | 'name' | 'role' | 'active'> | null;
+      // One fixed statement: this runs on every signed-in request.
+      const [user] = await UserModel.sequelize!.query<Pick<UserModel, 'id' | 'email' | 'name' | 'role' | 'active'>>(
+        'SELECT id, email, name, role, active FROM users WHERE id = ?',
+        { replacements: [id], type: QueryTypes.SELECT },
+      );
       done(null, user && user.active ? toSessionUser(user) : false);
     } catch (err) {
       done(err);

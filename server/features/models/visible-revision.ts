@@ -1,26 +1,26 @@
-import { Op, literal } from 'sequelize';
+import { QueryTypes } from 'sequelize';
 import type { SessionUser } from '@shared/api/session';
 import { RevisionModel } from '../../db/models/revision';
 import { findVisibleProject } from '../projects/project-policy';
 import { findRevision } from './model-service';
 
+export type RevisionRef = Pick<RevisionModel, 'id' | 'modelId' | 'number' | 'standard' | 'fileName' | 'status' | 'resultsVersion'>;
+
 /**
  * A revision through a project the caller may see, in one query: the hot path of the
- * member table and sheet. The stored summary (import warnings, possibly large) is left out.
+ * member table and sheet. Only the columns those routes use are read.
  * When nothing matches, the step-by-step lookup runs to give the same "not found" answer
  * (project or revision) as every other route.
  */
-export type RevisionRef = Pick<RevisionModel, 'id' | 'modelId' | 'number' | 'standard' | 'fileName' | 'status' | 'resultsVersion'>;
-
-const REF_ATTRIBUTES = ['id', 'modelId', 'number', 'standard', 'fileName', 'status', 'resultsVersion'] as const;
-
 export async function findVisibleRevision(user: SessionUser, projectId: number, revisionId: number): Promise<RevisionRef> {
-  // Both ids are parsed integers and the user id comes from the session; escape anyway.
-  const esc = (n: number) => RevisionModel.sequelize!.escape(n);
-  const member = user.role === 'admin' ? '' : ` AND EXISTS (SELECT 1 FROM project_members pm WHERE pm.project_id = m.project_id AND pm.user_id = ${esc(user.id)})`;
-  const visible = literal(`EXISTS (SELECT 1 FROM models m WHERE m.id = \`Revision\`.\`model_id\` AND m.project_id = ${esc(projectId)}${member})`);
-  // Plain values, not a model instance: this runs on every table page and sheet.
-  const revision = (await RevisionModel.findOne({ where: { [Op.and]: [{ id: revisionId }, visible] }, attributes: [...REF_ATTRIBUTES], raw: true })) as RevisionRef | null;
+  // One fixed statement (the revision, if its project is visible to the caller): this runs on every table page and sheet.
+  const [revision] = await RevisionModel.sequelize!.query<RevisionRef>(
+    `SELECT r.id, r.model_id AS modelId, r.number, r.standard, r.file_name AS fileName, r.status, r.results_version AS resultsVersion
+     FROM revisions r JOIN models m ON m.id = r.model_id
+     WHERE r.id = :revisionId AND m.project_id = :projectId
+       AND (:admin OR EXISTS (SELECT 1 FROM project_members pm WHERE pm.project_id = m.project_id AND pm.user_id = :userId))`,
+    { replacements: { revisionId, projectId, userId: user.id, admin: user.role === 'admin' }, type: QueryTypes.SELECT },
+  );
   if (revision) return revision;
   const project = await findVisibleProject(user, projectId);
   return findRevision(project.id, revisionId);
