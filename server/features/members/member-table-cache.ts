@@ -44,8 +44,9 @@ function evict(): void {
 }
 
 async function loadRows(revisionId: number, entry: Entry) {
-  const models = await MemberModel.findAll({ where: { revisionId }, attributes: { exclude: ['detail'] } });
-  const rows = models.map((m) => toTableRow(m.id, presentMemberRow(m)));
+  // Plain rows: building 20,000 model instances took longer than the query.
+  const raw = (await MemberModel.findAll({ where: { revisionId }, attributes: { exclude: ['detail'] }, raw: true })) as unknown as MemberModel[];
+  const rows = raw.map((m) => toTableRow(m.id, presentMemberRow({ ...m, isTension: Boolean(m.isTension) } as MemberModel)));
   entry.size = rows.length;
   evict();
   return { rows, indexOf: new Map(rows.map((r, i) => [r.id, i])) };
