@@ -59,10 +59,11 @@ function numListDir(ctx: ModelContext, id: number | undefined): Vec3 {
 }
 
 function pieces(ctx: ModelContext, placement: Mat4, shapeId: number | undefined): Piece[] {
-  const reps = refs(ctx.line(shapeId)?.Representations).map((id) => ctx.line(id)).filter(Boolean);
-  const body = reps.find((r: any) => (str(r.RepresentationIdentifier) ?? '').toLowerCase() === 'body') ?? reps[0];
-  if (!body) return [];
-  const items = refs(body.Items);
+  // Representations with their ids: the line cache is small, so a line read again may be another object.
+  const reps = refs(ctx.line(shapeId)?.Representations).map((id) => ({ id, l: ctx.line(id) })).filter((r) => r.l);
+  const bodyRep = reps.find((r) => (str(r.l.RepresentationIdentifier) ?? '').toLowerCase() === 'body') ?? reps[0];
+  if (!bodyRep) return [];
+  const items = refs(bodyRep.l.Items);
   const mapped = items.filter((i) => ctx.isA(i, 'IfcMappedItem'));
   if (mapped.length > 0) {
     return mapped.map((i) => {
@@ -72,8 +73,7 @@ function pieces(ctx: ModelContext, placement: Mat4, shapeId: number | undefined)
       return { m, ...itemBox(ctx, ref(src?.MappedRepresentation)) };
     });
   }
-  const ownRep = refs(ctx.line(shapeId)?.Representations).find((id) => ctx.line(id) === body);
-  return [{ m: placement, ...itemBox(ctx, ownRep) }];
+  return [{ m: placement, ...itemBox(ctx, bodyRep.id) }];
 }
 
 /**

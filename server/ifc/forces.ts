@@ -3,7 +3,7 @@
  * in the returned data): axial force in N, tension positive, one value per load case.
  */
 import type { ModelContext } from './model-context.ts';
-import { forceN, readPropertyContainer } from './property-sets.ts';
+import { forceN, type PropertyContainer, readPropertyContainers } from './property-sets.ts';
 import type { RelationsIndex } from './relations-index.ts';
 import type { ForcePsetSpec, MemberForce } from './types.ts';
 
@@ -15,10 +15,13 @@ export const FORCE_CONVENTION =
   'the end force is projected on the member axis (start to end); N = −F_head·axis at the start ' +
   'and N = +F_tail·axis at the end; the member value is the larger of the two (governing tension).';
 
-/** Each set with a matching name is one load case, so a member may carry several. */
-export function readMemberForces(ctx: ModelContext, ix: RelationsIndex, elementId: number, specs: ForcePsetSpec[]): MemberForce[] {
+/**
+ * Each set with a matching name is one load case, so a member may carry several. `own` are
+ * the element's own property containers when the caller has read them already.
+ */
+export function readMemberForces(ctx: ModelContext, ix: RelationsIndex, elementId: number, specs: ForcePsetSpec[], own?: PropertyContainer[]): MemberForce[] {
   const out: MemberForce[] = [];
-  const sets = (ix.psets.get(elementId) ?? []).map((id) => readPropertyContainer(ctx, id)).filter((c) => c !== null);
+  const sets = own ?? readPropertyContainers(ctx, ix.psets.get(elementId));
   for (const spec of specs) {
     for (const { props } of sets.filter((c) => c.name === spec.pset)) {
     const f = props.get(spec.force);

@@ -10,7 +10,7 @@ import { materialOf } from './materials.ts';
 import type { ModelContext } from './model-context.ts';
 import { objectPlacement } from './placements.ts';
 import { readProfile } from './profiles.ts';
-import { findProperty, propertySetsOf, readPropertyContainer } from './property-sets.ts';
+import { findProperty, propertySetsOf, readPropertyContainer, readPropertyContainers } from './property-sets.ts';
 import type { RelationsIndex } from './relations-index.ts';
 import { enumValue, num, ref, str } from './step-values.ts';
 import { tensionSignals } from './tension-signals.ts';
@@ -100,7 +100,9 @@ export function extractMember(ctx: ModelContext, ix: RelationsIndex, id: number,
   const typeId = ix.typeOf.get(id);
   const type = ctx.line(typeId);
   const predefinedType = usefulEnum(l.PredefinedType) ?? usefulEnum(type?.PredefinedType);
-  const psets = propertySetsOf(ctx, ix, id);
+  // The element's own sets are read once: for the merged view here and, per set, for the forces.
+  const ownSets = readPropertyContainers(ctx, ix.psets.get(id));
+  const psets = propertySetsOf(ctx, ix, id, ownSets);
   const parentId = ix.parentOf.get(id);
   const parent = ctx.isA(parentId, 'IfcElementAssembly') ? ctx.line(parentId) : null;
   const assembly = parent ? { globalId: str(parent.GlobalId) ?? `#${parentId}`, name: str(parent.Name), predefinedType: usefulEnum(parent.PredefinedType) } : null;
@@ -132,7 +134,7 @@ export function extractMember(ctx: ModelContext, ix: RelationsIndex, id: number,
     axis: frame.axis ? { start: round3(frame.axis.start), end: round3(frame.axis.end) } : null,
     axisSource: frame.axisSource,
     tensionSignals: sig.signals, isTensionCandidate: sig.candidate,
-    holes, forces: readMemberForces(ctx, ix, id, forceSpecs),
+    holes, forces: readMemberForces(ctx, ix, id, forceSpecs, ownSets),
   };
   if (sig.notSteelReason) member.notSteelReason = sig.notSteelReason;
   return { member, frame };

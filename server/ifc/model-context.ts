@@ -1,11 +1,13 @@
 /**
- * Per-read state shared by the extractors: the open model, a line cache (GetLine is the hot
- * path), class-name lookup, units and warnings. Lives only for one readIfcModel call.
+ * Per-read state shared by the extractors: the open model, a small line cache, class-name
+ * lookup, units and warnings. Lives only for one readIfcModel call.
  *
- * The cache is bounded: two generations of at most CACHE_GENERATION lines each; a hit in the
- * older one moves the line to the younger, and when the younger is full the older is
- * dropped. Shared lines (placements up the spatial tree, contexts, profiles, materials) stay;
- * per-member lines are read once and let go, so memory no longer grows with the file.
+ * Lines come from the file's text where it can (step-text.ts), else from web-ifc's GetLine.
+ * The cache is direct-mapped (slot = id mod size) and small: the extractors read most lines
+ * once and ask again only right away (className, then the line), and with lines this cheap to
+ * read, keeping many alive costs more in garbage collection than reading them again (a cache of
+ * 50,000 lines doubled the CPU time of extraction: the kept lines are copied into the old
+ * generation). Through GetLine (7 µs a line) a larger table is kept.
  */
 import { FromRawLineData, type IfcAPI, SchemaNames } from 'web-ifc';
 import { DEFER, type StepText } from './step-text.ts';
@@ -16,14 +18,15 @@ import { WarningCollector } from './warnings.ts';
 const POINT = new TextEncoder().encode('IFCCARTESIANPOINT');
 const DIRECTION = new TextEncoder().encode('IFCDIRECTION');
 
-/** Lines per cache generation (a line object is about 1 KB of heap). */
-export const CACHE_GENERATION = 50_000;
+/** Cache slots when lines come from the text, and when they come through GetLine. */
+export const CACHE_SIZE_TEXT = 1024;
+export const CACHE_SIZE_WEB_IFC = 65_536;
 
 export class ModelContext {
   readonly warnings = new WarningCollector();
   units!: UnitsInfo;
-  private young = new Map<number, any>();
-  private old = new Map<number, any>();
+  private readonly slotIds: Float64Array;
+  private readonly slotLines: any[];
   private typeNames = new Map<number, string>();
   /** Cache misses, and how many of them went through web-ifc's GetLine (ReadStats). */
   linesRead = 0;
@@ -36,32 +39,34 @@ export class ModelContext {
     readonly api: IfcAPI,
     readonly modelID: number,
     readonly schema: IfcSchema,
-    private readonly cacheGeneration = CACHE_GENERATION,
+    /** Cache slots (tests make it tiny); by default CACHE_SIZE_TEXT or CACHE_SIZE_WEB_IFC. */
+    cacheSize: number | undefined = undefined,
     /** The file's text, when lines may be read from it instead of through GetLine. */
     private readonly text: StepText | null = null,
   ) {
     this.fromRaw = text ? constructorsFor(api, modelID) : null;
+    const size = Math.max(1, Math.floor(cacheSize ?? (this.fromRaw ? CACHE_SIZE_TEXT : CACHE_SIZE_WEB_IFC)));
+    this.slotIds = new Float64Array(size);
+    this.slotLines = new Array(size).fill(null);
   }
 
   /** The raw (not flattened) line; null when the id does not exist or fails to parse. */
   line(id: number | undefined): any {
     if (id === undefined || id <= 0) return null;
-    const hit = this.young.get(id);
-    if (hit !== undefined) return hit;
-    let l: any = this.old.get(id);
-    if (l === undefined) {
-      this.linesRead++;
-      l = this.fromText(id);
-      if (l === DEFER) {
-        this.linesFromWebIfc++;
-        try {
-          l = this.api.GetLine(this.modelID, id) ?? null;
-        } catch {
-          l = null;
-        }
+    const slot = id % this.slotIds.length;
+    if (this.slotIds[slot] === id) return this.slotLines[slot];
+    this.linesRead++;
+    let l = this.fromText(id);
+    if (l === DEFER) {
+      this.linesFromWebIfc++;
+      try {
+        l = this.api.GetLine(this.modelID, id) ?? null;
+      } catch {
+        l = null;
       }
     }
-    this.remember(id, l);
+    this.slotIds[slot] = id;
+    this.slotLines[slot] = l;
     return l;
   }
 
@@ -103,14 +108,6 @@ export class ModelContext {
     return numList(kind === 'point' ? l?.Coordinates : l?.DirectionRatios);
   }
 
-  private remember(id: number, line: any): void {
-    if (this.young.size >= this.cacheGeneration) {
-      this.old = this.young;
-      this.young = new Map();
-    }
-    this.young.set(id, line);
-  }
-
   /** Entity class name in IFC spelling, e.g. 'IfcBeam'; '' when unknown. */
   className(id: number | undefined): string {
     if (id === undefined) return '';
@@ -128,6 +125,15 @@ export class ModelContext {
   isA(id: number | undefined, ...names: string[]): boolean {
     const c = this.className(id).toUpperCase();
     return names.some((n) => n.toUpperCase() === c);
+  }
+
+  /** How many lines of the class there are, without listing them (each listed id is a wasm call). */
+  countOfType(typeCode: number, includeInherited = false): number {
+    try {
+      return this.api.GetLineIDsWithType(this.modelID, typeCode, includeInherited).size();
+    } catch {
+      return 0;
+    }
   }
 
   idsOfType(typeCode: number, includeInherited = false): number[] {

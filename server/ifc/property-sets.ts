@@ -50,21 +50,37 @@ export function readPropertyContainer(ctx: ModelContext, id: number): { name: st
   return { name, props };
 }
 
-/** Occurrence sets first; type sets fill in names the occurrence does not have. */
-export function propertySetsOf(ctx: ModelContext, ix: RelationsIndex, elementId: number): PropertySets {
+export interface PropertyContainer {
+  name: string;
+  props: Map<string, PropValue>;
+}
+
+/** The containers of these ids that could be read, in order. */
+export function readPropertyContainers(ctx: ModelContext, ids: number[] | undefined): PropertyContainer[] {
+  const out: PropertyContainer[] = [];
+  for (const id of ids ?? []) {
+    const c = readPropertyContainer(ctx, id);
+    if (c) out.push(c);
+  }
+  return out;
+}
+
+/**
+ * Occurrence sets first; type sets fill in names the occurrence does not have. `own` are the
+ * element's own containers when the caller has read them already (they are not changed).
+ */
+export function propertySetsOf(ctx: ModelContext, ix: RelationsIndex, elementId: number, own?: PropertyContainer[]): PropertySets {
   const out: PropertySets = new Map();
-  const add = (ids: number[] | undefined) => {
-    for (const id of ids ?? []) {
-      const c = readPropertyContainer(ctx, id);
-      if (!c) continue;
+  const add = (containers: PropertyContainer[]) => {
+    for (const c of containers) {
       const existing = out.get(c.name);
-      if (!existing) out.set(c.name, c.props);
+      if (!existing) out.set(c.name, new Map(c.props));
       else for (const [k, v] of c.props) if (!existing.has(k)) existing.set(k, v);
     }
   };
-  add(ix.psets.get(elementId));
+  add(own ?? readPropertyContainers(ctx, ix.psets.get(elementId)));
   const typeId = ix.typeOf.get(elementId);
-  if (typeId !== undefined) add(ix.psets.get(typeId));
+  if (typeId !== undefined) add(readPropertyContainers(ctx, ix.psets.get(typeId)));
   return out;
 }
 

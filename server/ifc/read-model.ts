@@ -36,7 +36,7 @@ function countClasses(ctx: ModelContext): Record<string, number> {
   for (const name of COUNTED_CLASSES) {
     const code = (W as unknown as Record<string, number>)[name.toUpperCase()];
     if (typeof code !== 'number') continue;
-    const n = ctx.idsOfType(code, false).length;
+    const n = ctx.countOfType(code, false);
     if (n > 0) counts[name] = n;
   }
   return counts;
@@ -78,7 +78,7 @@ export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {})
     // (step-text.ts), unless web-ifc counted other lines than the text shows (a damaged file).
     const text = options.readLinesWith === 'web-ifc' ? null : StepText.index(bytes, (name) => api.GetTypeCodeFromName(name));
     const agrees = text !== null && text.size === lineCount(api, opened.modelID);
-    const ctx = new ModelContext(api, opened.modelID, opened.schema, options.cacheGeneration, agrees ? text : null);
+    const ctx = new ModelContext(api, opened.modelID, opened.schema, options.cacheSize, agrees ? text : null);
     ctxForStats = ctx;
     if (options.stats) options.stats.textReader = agrees;
     mark('text index');

@@ -72,7 +72,8 @@ export class StepText {
   private sparse = new Map<number, number>();
   private readonly text: Buffer;
   private pos = 0;
-  private readonly typeCodes = new Map<string, number>();
+  /** Type codes of the names met so far, by a hash of their bytes. */
+  private readonly names = new Map<number, { bytes: Uint8Array; code: number }[]>();
 
   private constructor(
     private readonly bytes: Uint8Array,
@@ -114,8 +115,13 @@ export class StepText {
 
   private scan(): void {
     const b = this.bytes;
+    const text = this.text;
     const n = b.length;
     let i = 0;
+    // Next ';', quote and '/' at or after the statement being read (-1: none left in the file).
+    let semi = text.indexOf(SEMI, 0);
+    let quote = text.indexOf(QUOTE, 0);
+    let slash = text.indexOf(SLASH, 0);
     while (i < n) {
       // Start of a statement: skip blanks and comments.
       let c = b[i];
@@ -145,20 +151,37 @@ export class StepText {
           }
         }
       }
-      // To the end of the statement: a ';' outside strings.
+      // To the end of the statement: a ';' outside strings. Buffer.indexOf (memchr) finds the
+      // next ';', quote and '/' far faster than a loop over every byte; the positions found
+      // are kept while they still lie ahead.
       let clean = true;
-      for (; i < n; i++) {
-        c = b[i];
-        if (c === SEMI) break;
-        if (c === QUOTE) {
-          i++;
-          while (i < n && b[i] !== QUOTE) i++;
-        } else if (c === SLASH && b[i + 1] === STAR) {
-          clean = false;
-          i += 2;
-          while (i < n && !(b[i] === STAR && b[i + 1] === SLASH)) i++;
-          i++;
+      for (;;) {
+        if (semi >= 0 && semi < i) semi = text.indexOf(SEMI, i);
+        if (semi < 0) {
+          i = n;
+          break;
         }
+        if (quote >= 0 && quote < i) quote = text.indexOf(QUOTE, i);
+        if (slash >= 0 && slash < i) slash = text.indexOf(SLASH, i);
+        const stop = quote >= 0 && quote < semi ? quote : semi;
+        if (slash >= 0 && slash < stop && b[slash + 1] === STAR) {
+          // A comment inside the statement: web-ifc reads this line.
+          clean = false;
+          const close = text.indexOf('*/', slash + 2);
+          i = close < 0 ? n : close + 2;
+          continue;
+        }
+        if (stop === semi) {
+          i = semi;
+          break;
+        }
+        // A string: skip to its closing quote ('' is an empty string next to it, which works out the same).
+        const close = text.indexOf(QUOTE, quote + 1);
+        if (close < 0) {
+          i = n;
+          break;
+        }
+        i = close + 1;
       }
       if (id >= 0) {
         if (clean && i < n) this.record(id, start);
@@ -179,9 +202,8 @@ export class StepText {
     if (off === DEFERRED) return DEFER;
     this.pos = off - 1;
     try {
-      const name = this.name();
+      const type = this.typeCode();
       if (this.bytes[this.pos] !== LPAREN) return DEFER;
-      const type = this.code(name);
       if (type === 0) return DEFER;
       const args = this.list(true);
       this.end();
@@ -283,30 +305,46 @@ export class StepText {
     if (this.bytes[this.pos] !== SEMI) throw defer;
   }
 
-  private code(name: string): number {
-    let c = this.typeCodes.get(name);
-    if (c === undefined) {
-      c = this.codeOf(name);
-      this.typeCodes.set(name, c);
-    }
-    return c;
-  }
-
-  /** An entity or type name (letters, digits, '_') as written (web-ifc's type code is of that spelling); blanks after it skipped. */
-  private name(): string {
+  /**
+   * Type code of the entity or type name at pos (letters, digits, '_'), as web-ifc codes that
+   * spelling; blanks after it skipped. Names are looked up by a hash of their bytes, so no
+   * string is made per line.
+   */
+  private typeCode(): number {
     const b = this.bytes;
     const s = this.pos;
     let i = s;
+    let h = 0;
     for (;;) {
       const c = b[i];
-      if ((c >= 0x41 && c <= 0x5a) || (c >= 0x61 && c <= 0x7a) || isDigit(c) || c === 0x5f) i++;
-      else break;
+      if ((c >= 0x41 && c <= 0x5a) || (c >= 0x61 && c <= 0x7a) || isDigit(c) || c === 0x5f) {
+        h = (Math.imul(h, 31) + c) | 0;
+        i++;
+      } else break;
     }
     if (i === s) throw defer;
-    const name = this.text.toString('latin1', s, i);
+    let code = -1;
+    const known = this.names.get(h);
+    if (known) {
+      for (const e of known) {
+        if (e.bytes.length !== i - s) continue;
+        let k = 0;
+        while (k < e.bytes.length && e.bytes[k] === b[s + k]) k++;
+        if (k === e.bytes.length) {
+          code = e.code;
+          break;
+        }
+      }
+    }
+    if (code < 0) {
+      code = this.codeOf(this.text.toString('latin1', s, i));
+      const entry = { bytes: b.slice(s, i), code };
+      if (known) known.push(entry);
+      else this.names.set(h, [entry]);
+    }
     while (isSpace(b[i])) i++;
     this.pos = i;
-    return name;
+    return code;
   }
 
   private skipSpace(): void {
@@ -372,7 +410,7 @@ export class StepText {
       return OMITTED;
     }
     // A typed value such as IFCLABEL('x') or IFCLENGTHMEASURE(2.5).
-    const name = this.name();
+    const typecode = this.typeCode();
     if (b[this.pos] !== LPAREN) throw defer;
     this.pos++;
     this.skipSpace();
@@ -380,7 +418,6 @@ export class StepText {
     this.skipSpace();
     if (b[this.pos] !== RPAREN || inner === null || inner === OMITTED || Array.isArray(inner)) throw defer;
     this.pos++;
-    const typecode = this.code(name);
     if (typecode === 0) throw defer;
     return { type: LABEL, typecode, value: (inner as { value: unknown }).value };
   }

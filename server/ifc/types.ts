@@ -23,8 +23,8 @@ export interface ForcePsetSpec {
 export interface ReadOptions {
   progress?: ProgressCallback;
   forcePsetNames?: ForcePsetSpec[];
-  /** Lines per generation of the bounded line cache (tests make it tiny to exercise eviction). */
-  cacheGeneration?: number;
+  /** Slots of the line cache (tests make it tiny to exercise eviction); see model-context.ts. */
+  cacheSize?: number;
   /**
    * 'text' (default): lines come from the file's text where that gives web-ifc's own line
    * objects, else from web-ifc; 'web-ifc': every line through web-ifc's GetLine (tests compare the two).
