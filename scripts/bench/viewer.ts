@@ -94,11 +94,27 @@ async function main(): Promise<void> {
     await form.getByLabel('Password', { exact: true }).fill(PASSWORD);
     await form.getByRole('button', { name: 'Sign in' }).click();
     await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
+    // Bytes on the wire per request (after any compression), from the browser's network events.
+    const cdp = await context.newCDPSession(page);
+    await cdp.send('Network.enable');
+    const requests = new Map<string, string>();
+    const received = new Map<string, number>();
+    cdp.on('Network.requestWillBeSent', (e) => requests.set(e.requestId, new URL(e.request.url).pathname));
+    cdp.on('Network.loadingFinished', (e) => {
+      const p = requests.get(e.requestId);
+      if (p) received.set(p, (received.get(p) ?? 0) + e.encodedDataLength);
+    });
     for (const run of ['cold', 'warm (geometry cached)']) {
+      requests.clear();
+      received.clear();
       await page.goto(`/projects/${projectId}/revisions/${revisionId}`);
       await page.waitForFunction(() => window.__gaugelineView !== undefined, undefined, { timeout: 120_000 });
       const v = await page.evaluate(() => window.__gaugelineView!);
       console.log(`viewer, ${run}: ${v.memberCount} steel elements, ${v.drawCalls} draw calls, first coloured frame ${secs(v.firstColouredFrameMs)} after navigation (${secs(v.sinceMountMs)} after the view mounted)`);
+      const total = [...received.values()].reduce((a, b) => a + b, 0);
+      const apiCalls = [...requests.values()].filter((p) => p.startsWith('/api/')).length;
+      const of = (suffix: string) => [...received].filter(([p]) => p.endsWith(suffix)).reduce((a, [, n]) => a + n, 0);
+      console.log(`  transferred until then: ${mb(total)} in ${requests.size} requests (${apiCalls} API calls); geometry ${mb(of('/geometry'))}, member rows for the view and the ledger ${mb(of('/member-columns') + of('/members'))}`);
       if (run === 'cold') {
         const within = v.drawCalls < 100 && v.firstColouredFrameMs < 5000;
         console.log(`targets (< 100 draw calls, < 5 s): ${within ? 'met' : 'NOT met'}`);

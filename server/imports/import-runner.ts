@@ -20,6 +20,7 @@ import type { ImportOutcome, ImportTask, ProgressMessage } from './run-import-ta
 import type { GeometryOutcome, GeometryTask } from './run-geometry-task';
 import type { RevisionSummary } from '@shared/api/models';
 import { geometryGzipKey, geometryKey } from '../features/geometry/geometry-key';
+import { memberColumnsOf } from '../features/member-columns/member-columns-service';
 
 /**
  * Runs import jobs in worker threads, never on the request thread. Jobs are claimed
@@ -125,7 +126,10 @@ export class ImportRunner {
       await reportProgress(job.id, this.owner, 'checking', 0.99);
       const kept = await storeOutcome(this.sequelize, job.id, this.owner, job.standard, outcome.summary, outcome.members);
       if (!kept) this.logger.warn(`import ${job.id}: another process took the job over; this result was dropped`);
-      else this.track(this.buildGeometry(job));
+      else {
+        this.track(this.buildGeometry(job));
+        this.track(this.prepareMemberColumns(job.id));
+      }
     } catch (err) {
       // While shutting down, leave the job claimed: its heartbeat goes stale and a running process takes it over.
       if (this.stopping) return;
@@ -183,6 +187,16 @@ export class ImportRunner {
       await local?.release().catch(() => undefined);
     }
     await this.recordGeometry(job.id, status, problem).catch((err) => this.logger.warn(`import ${job.id}: ${(err as Error).message}`));
+  }
+
+  /** Builds the 3D view's member columns now, so the first view after an import finds them ready. */
+  private async prepareMemberColumns(revisionId: number): Promise<void> {
+    try {
+      const revision = await RevisionModel.findByPk(revisionId, { attributes: ['id', 'resultsVersion'] });
+      if (revision) await memberColumnsOf(revision);
+    } catch (err) {
+      this.logger.warn(`import ${revisionId}: member columns not prepared (${(err as Error).message}); they are built on first use`);
+    }
   }
 
   private async recordGeometry(revisionId: number, status: 'ready' | 'failed', problem: string | null): Promise<void> {
