@@ -1,8 +1,9 @@
+import { QueryTypes } from 'sequelize';
 import type { z } from 'zod';
 import type { memberQuerySchema, MemberPage, MemberSortKey } from '@shared/api/members';
 import { MemberModel } from '../../db/models/member';
 import { presentMemberRow } from './member-presenter';
-import { memberOrder } from './member-query';
+import { sortOrder, textRanksOf, TEXT_RANK_SQL, type SortableRow } from './member-table-order';
 import { filterKey, matchesInOrder, pageOf, toTableRow, type TableRow } from './member-table-rows';
 
 type Query = z.output<typeof memberQuerySchema>;
@@ -12,11 +13,11 @@ type Query = z.output<typeof memberQuerySchema>;
  * an array instead of a sort in MariaDB. Each copy is labelled with the revision's
  * `resultsVersion`, which every request reads from the database anyway; a different
  * number drops the copy, so all app processes sharing a database see every change.
- * Sort orders come from MariaDB itself (same collation as before), once per copy and key.
+ * Text orders come from MariaDB's collation as ranks (member-table-order.ts), read with the rows.
  */
 interface Entry {
   version: number;
-  rows: Promise<{ rows: TableRow[]; indexOf: Map<number, number> }>;
+  rows: Promise<{ rows: (TableRow & SortableRow)[] }>;
   orders: Map<string, Promise<Int32Array>>;
   /** Matches of recent filters in recent orders: paging through one filter costs a slice. */
   matches: Map<string, Int32Array>;
@@ -45,11 +46,18 @@ function evict(): void {
 
 async function loadRows(revisionId: number, entry: Entry) {
   // Plain rows: building 20,000 model instances took longer than the query.
-  const raw = (await MemberModel.findAll({ where: { revisionId }, attributes: { exclude: ['detail'] }, raw: true })) as unknown as MemberModel[];
-  const rows = raw.map((m) => toTableRow(m.id, presentMemberRow({ ...m, isTension: Boolean(m.isTension) } as MemberModel)));
+  const [raw, ranks] = await Promise.all([
+    MemberModel.findAll({ where: { revisionId }, attributes: { exclude: ['detail'] }, raw: true }) as unknown as Promise<MemberModel[]>,
+    MemberModel.sequelize!.query<Record<string, number>>(TEXT_RANK_SQL, { replacements: [revisionId], type: QueryTypes.SELECT }),
+  ]);
+  const rankOf = new Map(ranks.map((r) => [Number(r.id), textRanksOf(r)]));
+  // A member written between the two reads belongs to a newer version; leave it out.
+  const rows = raw
+    .filter((m) => rankOf.has(m.id))
+    .map((m) => ({ ...toTableRow(m.id, presentMemberRow({ ...m, isTension: Boolean(m.isTension) } as MemberModel)), ranks: rankOf.get(m.id)! }));
   entry.size = rows.length;
   evict();
-  return { rows, indexOf: new Map(rows.map((r, i) => [r.id, i])) };
+  return { rows };
 }
 
 function entryFor(revisionId: number, version: number): Entry {
@@ -66,22 +74,11 @@ function entryFor(revisionId: number, version: number): Entry {
   return entry;
 }
 
-async function orderFor(revisionId: number, entry: Entry, sort: MemberSortKey, dir: 'asc' | 'desc'): Promise<Int32Array> {
+function orderFor(entry: Entry, sort: MemberSortKey, dir: 'asc' | 'desc'): Promise<Int32Array> {
   const key = `${sort}:${dir}`;
   let order = entry.orders.get(key);
   if (!order) {
-    order = (async () => {
-      const { indexOf } = await entry.rows;
-      const ids = (await MemberModel.findAll({
-        where: { revisionId },
-        attributes: ['id'],
-        order: memberOrder({ sort, dir } as Query),
-        raw: true,
-      })) as unknown as { id: number }[];
-      // Members written after the rows were read belong to a newer version; leave them out.
-      const positions = ids.map((r) => indexOf.get(r.id)).filter((i): i is number => i !== undefined);
-      return Int32Array.from(positions);
-    })();
+    order = entry.rows.then(({ rows }) => sortOrder(rows, sort, dir));
     order.catch(() => entry.orders.get(key) === order && entry.orders.delete(key));
     entry.orders.set(key, order);
   }
@@ -91,7 +88,7 @@ async function orderFor(revisionId: number, entry: Entry, sort: MemberSortKey, d
 /** One page of a revision's member table (filtered, sorted), with the total of matches. */
 export async function cachedMemberPage(revisionId: number, resultsVersion: number, q: Query): Promise<MemberPage> {
   const entry = entryFor(revisionId, resultsVersion);
-  const [{ rows }, order] = await Promise.all([entry.rows, orderFor(revisionId, entry, q.sort, q.dir)]);
+  const [{ rows }, order] = await Promise.all([entry.rows, orderFor(entry, q.sort, q.dir)]);
   const key = `${q.sort}:${q.dir}:${filterKey(q)}`;
   let matches = entry.matches.get(key);
   if (matches) entry.matches.delete(key);
