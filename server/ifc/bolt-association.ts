@@ -12,6 +12,9 @@ import type { RelationsIndex } from './relations-index.ts';
 import type { Vec3 } from './types.ts';
 
 const TOL = 1; // mm, box inflation for the crossing test
+/** Cell numbers: indices from -CELL_OFFSET to CELL_OFFSET - 1 on each axis (2 m cells: ±131 km). */
+const CELL_OFFSET = 65_536;
+const CELL_SPAN = 2 * CELL_OFFSET;
 
 interface Box3 {
   min: Vec3;
@@ -67,32 +70,50 @@ interface Candidate {
 
 /** Uniform grid over member boxes so each bolt only tests members near it (large models). */
 class BoxGrid {
-  private cells = new Map<string, Candidate[]>();
+  private cells = new Map<number, Candidate[]>();
+  /** Members too long for the walk, or placed beyond the numbered cells: tested with every bolt. */
+  private shared: Candidate[] = [];
   private readonly size = 2000; // mm
 
   constructor(candidates: Candidate[]) {
-    for (const c of candidates) for (const key of this.keys(c.world.min, c.world.max)) {
-      const list = this.cells.get(key);
-      if (list) list.push(c);
-      else this.cells.set(key, [c]);
+    for (const c of candidates) {
+      // A box that is not finite meets nothing (NaN lies in no cell, and must not become shared).
+      if (![...c.world.min, ...c.world.max].every(Number.isFinite)) continue;
+      const keys = this.keys(c.world.min, c.world.max);
+      if (keys === null) {
+        this.shared.push(c);
+        continue;
+      }
+      for (const key of keys) {
+        const list = this.cells.get(key);
+        if (list) list.push(c);
+        else this.cells.set(key, [c]);
+      }
     }
   }
 
-  private keys(min: Vec3, max: Vec3): string[] {
+  /**
+   * Numbered cells (a number per cell, not a string: this runs for every bolt) covering the
+   * box; null when the box is too large to walk or lies beyond ±131 km, where it is shared.
+   */
+  private keys(min: Vec3, max: Vec3): number[] | null {
     const lo = min.map((v) => Math.floor(v / this.size));
     const hi = max.map((v) => Math.floor(v / this.size));
-    // Very long members span many cells; cap the walk and let them fall back to a shared cell.
-    if ((hi[0] - lo[0] + 1) * (hi[1] - lo[1] + 1) * (hi[2] - lo[2] + 1) > 4096) return ['*'];
-    const out: string[] = [];
-    for (let i = lo[0]; i <= hi[0]; i++) for (let j = lo[1]; j <= hi[1]; j++) for (let k = lo[2]; k <= hi[2]; k++) out.push(`${i},${j},${k}`);
+    if ((hi[0] - lo[0] + 1) * (hi[1] - lo[1] + 1) * (hi[2] - lo[2] + 1) > 4096) return null;
+    if (lo.some((v) => !(v >= -CELL_OFFSET)) || hi.some((v) => !(v < CELL_OFFSET))) return null;
+    const out: number[] = [];
+    for (let i = lo[0]; i <= hi[0]; i++) for (let j = lo[1]; j <= hi[1]; j++) for (let k = lo[2]; k <= hi[2]; k++) {
+      out.push(((i + CELL_OFFSET) * CELL_SPAN + (j + CELL_OFFSET)) * CELL_SPAN + (k + CELL_OFFSET));
+    }
     return out;
   }
 
   near(bolt: BoltWork): Candidate[] {
-    const found = new Set<Candidate>(this.cells.get('*') ?? []);
+    const found = new Set<Candidate>(this.shared);
     const r = bolt.halfLength;
     for (const p of bolt.group.positions) {
-      for (const key of this.keys([p[0] - r, p[1] - r, p[2] - r], [p[0] + r, p[1] + r, p[2] + r])) for (const c of this.cells.get(key) ?? []) found.add(c);
+      // A bolt beyond the numbered cells can only meet the shared members.
+      for (const key of this.keys([p[0] - r, p[1] - r, p[2] - r], [p[0] + r, p[1] + r, p[2] + r]) ?? []) for (const c of this.cells.get(key) ?? []) found.add(c);
     }
     return [...found].sort((a, b) => a.work.member.expressId - b.work.member.expressId);
   }
@@ -127,6 +148,13 @@ export function associateBolts(ctx: ModelContext, ix: RelationsIndex, members: M
 
   for (const bolt of bolts) {
     const g = bolt.group;
+    // The crossing test is asked twice per member (to link, then for the holes): once is enough.
+    const hits = new Map<Candidate, Vec3[]>();
+    const cross = (c: Candidate): Vec3[] => {
+      let h = hits.get(c);
+      if (!h) hits.set(c, (h = crossing(bolt, c)));
+      return h;
+    };
     let linked: { c: Candidate | undefined; work: MemberWork }[] = [];
     const realized = (ix.realizes.get(g.expressId) ?? []).map((id) => byExpress.get(id)).filter((w): w is MemberWork => !!w);
     if (realized.length) {
@@ -138,12 +166,12 @@ export function associateBolts(ctx: ModelContext, ix: RelationsIndex, members: M
       if (siblings.length) {
         const hit = siblings.filter((w) => {
           const c = candByExpress.get(w.member.expressId);
-          return c && crossing(bolt, c).length > 0;
+          return c && cross(c).length > 0;
         });
         linked = (hit.length ? hit : siblings).map((work) => ({ c: candByExpress.get(work.member.expressId), work }));
         g.associatedBy = 'assembly';
       } else {
-        linked = grid.near(bolt).filter((c) => crossing(bolt, c).length > 0).map((c) => ({ c, work: c.work }));
+        linked = grid.near(bolt).filter((c) => cross(c).length > 0).map((c) => ({ c, work: c.work }));
         if (linked.length) g.associatedBy = 'geometry';
       }
     }
@@ -152,7 +180,7 @@ export function associateBolts(ctx: ModelContext, ix: RelationsIndex, members: M
       continue;
     }
     g.memberGlobalIds = [...new Set(linked.map((l) => l.work.member.globalId))].sort();
-    for (const { c, work } of linked) addBoltHoles(work, bolt, c ? crossing(bolt, c) : g.positions);
+    for (const { c, work } of linked) addBoltHoles(work, bolt, c ? cross(c) : g.positions);
   }
 }
 
