@@ -51,3 +51,66 @@ export function sharedEnvOf(config: { db: { host: string; port: number; name: st
     SESSION_SECRET: config.session.secret, DATA_DIR: config.dataDir, CLIENT_DIST: '/nonexistent', DEMO_SEED: 'off', IMPORT_POLL_MS: '100', ...extra,
   };
 }
+
+export interface EntryPointProcess {
+  url: string;
+  /** Everything the process wrote to stdout and stderr so far. */
+  output(): string;
+  /** SIGTERM, wait for the exit, and return the whole output. */
+  stop(): Promise<string>;
+}
+
+/** Only what a process needs to find node and tsx; nothing else of the test runner's environment leaks in. */
+const baseEnv = () => ({ PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '' });
+
+/**
+ * Starts the real entry point (`server/index.ts`, logging as `npm start` does, not quiet)
+ * with exactly `env`, keeping every byte of stdout and stderr, and waits until it listens.
+ */
+export async function spawnEntryPoint(env: Record<string, string>, timeoutMs = 60_000): Promise<EntryPointProcess> {
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: root, env: { ...baseEnv(), ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+  let output = '';
+  child.stdout!.on('data', (c: Buffer) => (output += c.toString('utf8')));
+  child.stderr!.on('data', (c: Buffer) => (output += c.toString('utf8')));
+  // 'close', not 'exit': the pipes are drained by then, so no last line is lost.
+  const exited = new Promise<void>((resolve) => child.once('close', () => resolve()));
+  const url = await new Promise<string>((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error(`app did not listen within ${timeoutMs} ms:\n${output}`)), timeoutMs);
+    const lines = createInterface({ input: child.stdout! });
+    lines.on('line', (line) => {
+      const m = /Gaugeline is running at (http:\/\/\S+)/.exec(line);
+      if (m) {
+        clearTimeout(timer);
+        resolve(m[1]);
+      }
+    });
+    child.once('exit', (code) => {
+      clearTimeout(timer);
+      reject(new Error(`app exited with ${code} before listening:\n${output}`));
+    });
+  });
+  return {
+    url,
+    output: () => output,
+    async stop() {
+      child.kill('SIGTERM');
+      await exited;
+      return output;
+    },
+  };
+}
+
+/** Runs the real entry point with exactly `env` until it exits (a start-up that should fail). */
+export function runEntryPoint(env: Record<string, string>, timeoutMs = 30_000): Promise<{ code: number | null; output: string }> {
+  return new Promise((resolve) => {
+    const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: root, env: { ...baseEnv(), ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+    let output = '';
+    child.stdout!.on('data', (c: Buffer) => (output += c.toString('utf8')));
+    child.stderr!.on('data', (c: Buffer) => (output += c.toString('utf8')));
+    const timer = setTimeout(() => child.kill('SIGKILL'), timeoutMs);
+    child.once('close', (code) => {
+      clearTimeout(timer);
+      resolve({ code, output });
+    });
+  });
+}
