@@ -147,6 +147,7 @@ function writeReport(started: Date, loadStart: number[], loadEnd: number[], runs
       `${api.members.toLocaleString('en')}-member revision (${(api.fileBytes / 1048576).toFixed(0)} MB file, imported in ${fmtMs(api.importMs)} ${api.via === 'api' ? 'through the upload API' : 'by read, extract, check and storeOutcome in a child process: no display geometry, which the table and sheet do not use; --via=api uploads instead'}), ${api.connections} signed-in clients on loopback`,
       `(autocannon, one session per connection), ${api.durationS.toFixed(1)} s, bounded by ${api.seconds} s or ${api.requestLimit.toLocaleString('en')} requests. ${api.mix};`,
       `table requests mix sort keys, directions, band filters, minimum utilisation, searches and pages (${Object.entries(api.samples).map(([k, v]) => `${k} ${v}`).join(', ')}); sheets ask for random members.`,
+      api.coldFirstMs !== undefined ? `Before the timed run: the first table page after the import took ${fmtMs(api.coldFirstMs)} (the app loads its copy of the table), and one request per sort key and direction ${fmtMs(api.warmUpMs ?? NaN)} in all.` : '',
       `Errors ${api.errors}, timeouts ${api.timeouts}; app RSS peak ${(api.appRssPeak / 1048576).toFixed(0)} MB; ${load(api.loadAverage)}. Target: p95 under 100 ms.`,
       '',
       fence(apiTable(api)),

@@ -21,6 +21,7 @@ import type { GeometryOutcome, GeometryTask } from './run-geometry-task';
 import type { RevisionSummary } from '@shared/api/models';
 import { geometryGzipKey, geometryKey } from '../features/geometry/geometry-key';
 import { memberColumnsOf } from '../features/member-columns/member-columns-service';
+import { prepareMemberTable } from '../features/members/member-table-cache';
 
 /**
  * Runs import jobs in worker threads, never on the request thread. Jobs are claimed
@@ -189,11 +190,14 @@ export class ImportRunner {
     await this.recordGeometry(job.id, status, problem).catch((err) => this.logger.warn(`import ${job.id}: ${(err as Error).message}`));
   }
 
-  /** Builds the 3D view's member columns now, so the first view after an import finds them ready. */
+  /**
+   * Builds the 3D view's member columns and this process's copy of the member table now,
+   * so the first view and the first table page after an import find them ready.
+   */
   private async prepareMemberColumns(revisionId: number): Promise<void> {
     try {
       const revision = await RevisionModel.findByPk(revisionId, { attributes: ['id', 'resultsVersion'] });
-      if (revision) await memberColumnsOf(revision);
+      if (revision) await Promise.all([memberColumnsOf(revision), prepareMemberTable(revision.id, revision.resultsVersion)]);
     } catch (err) {
       this.logger.warn(`import ${revisionId}: member columns not prepared (${(err as Error).message}); they are built on first use`);
     }

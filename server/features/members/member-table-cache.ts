@@ -98,6 +98,11 @@ export async function cachedMemberPage(revisionId: number, resultsVersion: numbe
   return pageOf(rows, matches, q);
 }
 
+/** Loads the copy of a revision's table and its default order ahead of the first request. */
+export async function prepareMemberTable(revisionId: number, resultsVersion: number): Promise<void> {
+  await orderFor(entryFor(revisionId, resultsVersion), 'utilisation', 'desc');
+}
+
 /** Forgets every copy (tests, and a revision deleted). */
 export function clearMemberTableCache(): void {
   entries.clear();
