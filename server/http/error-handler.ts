@@ -1,5 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import { ConnectionError } from 'sequelize';
+import { BaseError, ConnectionError } from 'sequelize';
 import { ERROR_IDS, type ApiErrorBody } from '@shared/api/errors';
 import { AppError, errors } from './errors';
 
@@ -8,6 +8,8 @@ export const apiNotFound: RequestHandler = (_req, _res, next) => next(errors.not
 
 function isDbDown(err: unknown): boolean {
   if (err instanceof ConnectionError) return true;
+  // Only the database's own errors: an unreachable file store (S3) is a different failure and is logged.
+  if (!(err instanceof BaseError) && (err as { name?: string })?.name !== 'SqlError') return false;
   const code = (err as { code?: string; parent?: { code?: string } })?.code ?? (err as any)?.parent?.code;
   return ['ECONNREFUSED', 'ER_GET_CONNECTION_TIMEOUT', 'ER_CONNECTION_ALREADY_CLOSED', 'ER_SOCKET_UNEXPECTED_CLOSE'].includes(code ?? '');
 }

@@ -25,8 +25,8 @@ export const errors = {
   badCredentials: () => new AppError(401, ERROR_IDS.badCredentials, 'The e-mail address or password is not correct.'),
   forbidden: (message = 'Your role does not allow this.') => new AppError(403, ERROR_IDS.forbidden, message),
   csrf: () => new AppError(403, ERROR_IDS.csrf, 'The request is missing its security token. Reload the page and try again.'),
-  rateLimited: (retryAfterSeconds: number) =>
-    new AppError(429, ERROR_IDS.rateLimited, `Too many sign-in attempts. Try again in ${Math.ceil(retryAfterSeconds / 60)} minute(s).`),
+  rateLimited: (retryAfterSeconds: number, what = 'sign-in attempts') =>
+    new AppError(429, ERROR_IDS.rateLimited, `Too many ${what}. Try again in ${Math.ceil(retryAfterSeconds / 60)} minute(s).`),
   notFound: (what: string) => new AppError(404, ERROR_IDS.notFound, `${what} was not found.`),
   conflict: (message: string) => new AppError(409, ERROR_IDS.conflict, message),
   dbDown: () => new AppError(503, ERROR_IDS.dbDown, 'The database is not reachable just now. Try again shortly.'),

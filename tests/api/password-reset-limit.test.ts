@@ -72,6 +72,7 @@ describe('password-reset rate limit', () => {
     expect(unknownAnswers.map((r) => r.status)).toEqual(expected);
     for (const refused of [...knownAnswers, ...unknownAnswers].filter((r) => r.status === 429)) {
       expect(refused.body.error).toBe('auth.rate-limited');
+      expect(refused.body.message).toMatch(/reset link/);
       expect(refused.headers['content-type']).toMatch(/application\/json/);
     }
 

@@ -49,7 +49,7 @@ export function sessionRoutes(pp: passport.PassportStatic, config: AppConfig, se
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     keyGenerator: (req) => `reset|${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
-    handler: (_req, _res, next, options) => next(errors.rateLimited(options.windowMs / 1000)),
+    handler: (_req, _res, next, options) => next(errors.rateLimited(options.windowMs / 1000, 'requests for a reset link')),
   });
 
   router.post('/password-reset', resetLimiter, async (req, res) => {
