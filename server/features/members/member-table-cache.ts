@@ -4,7 +4,7 @@ import type { memberQuerySchema, MemberPage, MemberSortKey } from '@shared/api/m
 import { MemberModel } from '../../db/models/member';
 import { presentMemberRow } from './member-presenter';
 import { sortOrder, textRanksOf, TEXT_RANK_SQL, type SortableRow } from './member-table-order';
-import { filterKey, matchesInOrder, pageOf, toTableRow, type TableRow } from './member-table-rows';
+import { filterKey, filterMask, pageOf, toTableRow, type FilterMask, type TableRow } from './member-table-rows';
 
 type Query = z.output<typeof memberQuerySchema>;
 
@@ -19,13 +19,13 @@ interface Entry {
   version: number;
   rows: Promise<{ rows: (TableRow & SortableRow)[] }>;
   orders: Map<string, Promise<Int32Array>>;
-  /** Matches of recent filters in recent orders: paging through one filter costs a slice. */
-  matches: Map<string, Int32Array>;
+  /** Recent filters' masks: a filter is evaluated once, then any order or page walks a byte array. */
+  masks: Map<string, FilterMask>;
   size: number;
 }
 
-/** Filtered orders kept per revision (each at most 4 bytes per member). */
-const MATCH_SETS = 64;
+/** Filter masks kept per revision (one byte per member each). */
+const MASKS_KEPT = 64;
 /** Rows kept across all revisions (about 1 KB each); least recently used copies go first. */
 const ROW_BUDGET = 250_000;
 const entries = new Map<number, Entry>();
@@ -66,7 +66,7 @@ function entryFor(revisionId: number, version: number): Entry {
     touch(revisionId, held);
     return held;
   }
-  const entry: Entry = { version, orders: new Map(), matches: new Map(), size: 0, rows: undefined as never };
+  const entry: Entry = { version, orders: new Map(), masks: new Map(), size: 0, rows: undefined as never };
   entry.rows = loadRows(revisionId, entry);
   // A failed load must not stay cached.
   entry.rows.catch(() => entries.get(revisionId) === entry && entries.delete(revisionId));
@@ -89,13 +89,13 @@ function orderFor(entry: Entry, sort: MemberSortKey, dir: 'asc' | 'desc'): Promi
 export async function cachedMemberPage(revisionId: number, resultsVersion: number, q: Query): Promise<MemberPage> {
   const entry = entryFor(revisionId, resultsVersion);
   const [{ rows }, order] = await Promise.all([entry.rows, orderFor(entry, q.sort, q.dir)]);
-  const key = `${q.sort}:${q.dir}:${filterKey(q)}`;
-  let matches = entry.matches.get(key);
-  if (matches) entry.matches.delete(key);
-  else matches = matchesInOrder(rows, order, q);
-  entry.matches.set(key, matches);
-  if (entry.matches.size > MATCH_SETS) entry.matches.delete(entry.matches.keys().next().value!);
-  return pageOf(rows, matches, q);
+  const key = filterKey(q);
+  let mask = entry.masks.get(key);
+  if (mask) entry.masks.delete(key);
+  else mask = filterMask(rows, q);
+  entry.masks.set(key, mask);
+  if (entry.masks.size > MASKS_KEPT) entry.masks.delete(entry.masks.keys().next().value!);
+  return pageOf(rows, order, mask, q);
 }
 
 /** Loads the copy of a revision's table and its default order ahead of the first request. */

@@ -78,18 +78,33 @@ export function filterKey(q: Query): string {
   return JSON.stringify([q.scope, q.band ?? null, q.minUtilisation ?? null, q.ifcClass ?? '', q.storey ?? '', q.assembly ?? '', q.profile ?? '', q.ids ?? '', q.q?.trim() ?? '']);
 }
 
-/** Positions (into rows) of every row the query's filter keeps, in the given order. */
-export function matchesInOrder(rows: readonly TableRow[], order: Int32Array, q: Query): Int32Array {
-  const keep = tableFilter(q);
-  const out = new Int32Array(order.length);
-  let n = 0;
-  for (let i = 0; i < order.length; i++) if (keep(rows[order[i]])) out[n++] = order[i];
-  return out.slice(0, n);
+/** Which rows (by position) the query's filter keeps, and how many: evaluated once per filter, whatever the sort. */
+export interface FilterMask {
+  keep: Uint8Array;
+  count: number;
 }
 
-/** One page of the matches. */
-export function pageOf(rows: readonly TableRow[], matches: Int32Array, q: Query): MemberPage {
+export function filterMask(rows: readonly TableRow[], q: Query): FilterMask {
+  const test = tableFilter(q);
+  const keep = new Uint8Array(rows.length);
+  let count = 0;
+  for (let i = 0; i < rows.length; i++) {
+    if (!test(rows[i])) continue;
+    keep[i] = 1;
+    count++;
+  }
+  return { keep, count };
+}
+
+/** One page of the kept rows in the given order (positions into rows); walks only as far as the page. */
+export function pageOf(rows: readonly TableRow[], order: Int32Array, mask: FilterMask, q: Query): MemberPage {
   const from = (q.page - 1) * q.pageSize;
-  const members = Array.from(matches.subarray(Math.min(from, matches.length), Math.min(from + q.pageSize, matches.length)), (i) => rows[i].row);
-  return { total: matches.length, page: q.page, pageSize: q.pageSize, members };
+  const to = Math.min(from + q.pageSize, mask.count);
+  const members: MemberRow[] = [];
+  for (let i = 0, seen = 0; i < order.length && seen < to; i++) {
+    if (!mask.keep[order[i]]) continue;
+    if (seen >= from) members.push(rows[order[i]].row);
+    seen++;
+  }
+  return { total: mask.count, page: q.page, pageSize: q.pageSize, members };
 }
