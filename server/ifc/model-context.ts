@@ -11,7 +11,7 @@
  */
 import { FromRawLineData, type IfcAPI, SchemaNames } from 'web-ifc';
 import { DEFER, type StepText } from './step-text.ts';
-import { numList } from './step-values.ts';
+import { numList, ref, refs } from './step-values.ts';
 import type { IfcSchema, UnitsInfo } from './types.ts';
 import { WarningCollector } from './warnings.ts';
 
@@ -106,6 +106,34 @@ export class ModelContext {
     }
     const l = this.line(id);
     return numList(kind === 'point' ? l?.Coordinates : l?.DirectionRatios);
+  }
+
+  /**
+   * refs() of attribute `attribute` (argument `index`) of a line of class `name`, straight from
+   * the text where it can, else from the line object. `single`: web-ifc builds one reference
+   * for this attribute even where the file writes a list (a list is then left to the line object).
+   */
+  refsAt(id: number, name: Uint8Array, index: number, attribute: string, single = false): number[] {
+    if (this.text && id > 0) {
+      const r = this.text.handles(id, name, index, single);
+      if (r !== DEFER) {
+        this.linesRead++;
+        return r;
+      }
+    }
+    return refs(this.line(id)?.[attribute]);
+  }
+
+  /** ref() of a single-reference attribute, as refsAt reads it. */
+  refAt(id: number, name: Uint8Array, index: number, attribute: string): number | undefined {
+    if (this.text && id > 0) {
+      const r = this.text.handles(id, name, index, true);
+      if (r !== DEFER) {
+        this.linesRead++;
+        return r[0];
+      }
+    }
+    return ref(this.line(id)?.[attribute]);
   }
 
   /** Entity class name in IFC spelling, e.g. 'IfcBeam'; '' when unknown. */

@@ -39,6 +39,10 @@ export interface RelationsIndex {
   profileDefProperties: Map<number, number[]>;
 }
 
+const DEFINES_BY_PROPERTIES = new TextEncoder().encode('IFCRELDEFINESBYPROPERTIES');
+const ASSOCIATES_MATERIAL = new TextEncoder().encode('IFCRELASSOCIATESMATERIAL');
+const VOIDS_ELEMENT = new TextEncoder().encode('IFCRELVOIDSELEMENT');
+
 function push(map: Map<number, number[]>, key: number | undefined, value: number | undefined): void {
   if (key === undefined || value === undefined) return;
   const list = map.get(key);
@@ -55,11 +59,12 @@ export function buildRelationsIndex(ctx: ModelContext): RelationsIndex {
     profileProperties: new Map(), materialProperties: new Map(), profileDefProperties: new Map(),
   };
 
+  // The three most numerous relationships are read for their references only (refsAt).
   for (const id of ctx.idsOfType(W.IFCRELDEFINESBYPROPERTIES)) {
-    const r = ctx.line(id);
-    // IFC4 allows an IfcPropertySetDefinitionSet (a list) here.
-    const defs = refs(r?.RelatingPropertyDefinition);
-    for (const o of refs(r?.RelatedObjects)) for (const d of defs) push(ix.psets, o, d);
+    // IFC4 allows an IfcPropertySetDefinitionSet (a list) here; web-ifc 0.0.78 reads it as one
+    // reference without an id, so such a set gives nothing either way.
+    const defs = ctx.refsAt(id, DEFINES_BY_PROPERTIES, 5, 'RelatingPropertyDefinition', true);
+    for (const o of ctx.refsAt(id, DEFINES_BY_PROPERTIES, 4, 'RelatedObjects')) for (const d of defs) push(ix.psets, o, d);
   }
   for (const id of ctx.idsOfType(W.IFCRELDEFINESBYTYPE)) {
     const r = ctx.line(id);
@@ -71,8 +76,8 @@ export function buildRelationsIndex(ctx: ModelContext): RelationsIndex {
     for (const p of refs(ctx.line(typeId)?.HasPropertySets)) push(ix.psets, typeId, p);
   }
   for (const id of ctx.idsOfType(W.IFCRELASSOCIATESMATERIAL)) {
-    const r = ctx.line(id);
-    for (const o of refs(r?.RelatedObjects)) push(ix.materials, o, ref(r?.RelatingMaterial));
+    const material = ctx.refAt(id, ASSOCIATES_MATERIAL, 5, 'RelatingMaterial');
+    for (const o of ctx.refsAt(id, ASSOCIATES_MATERIAL, 4, 'RelatedObjects')) push(ix.materials, o, material);
   }
   for (const id of ctx.idsOfType(W.IFCRELCONTAINEDINSPATIALSTRUCTURE)) {
     const r = ctx.line(id);
@@ -91,8 +96,7 @@ export function buildRelationsIndex(ctx: ModelContext): RelationsIndex {
     }
   }
   for (const id of ctx.idsOfType(W.IFCRELVOIDSELEMENT)) {
-    const r = ctx.line(id);
-    push(ix.openings, ref(r?.RelatingBuildingElement), ref(r?.RelatedOpeningElement));
+    push(ix.openings, ctx.refAt(id, VOIDS_ELEMENT, 4, 'RelatingBuildingElement'), ctx.refAt(id, VOIDS_ELEMENT, 5, 'RelatedOpeningElement'));
   }
   for (const id of ctx.idsOfType(W.IFCRELCONNECTSWITHREALIZINGELEMENTS)) {
     const r = ctx.line(id);

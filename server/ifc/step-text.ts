@@ -215,6 +215,100 @@ export class StepText {
   }
 
   /**
+   * The express ids in argument `index` of a line named `name` (as written in capitals): a
+   * reference gives one id, a list of references its ids, '$' none — what refs() of the
+   * attribute of web-ifc's line object gives (`single`: only a reference or '$' is read here). No line object is built; the arguments before it
+   * are skipped over. Anything else there (or another name) answers DEFER: read the line.
+   * For the relationship lines, which are a tenth of a model and only their references matter.
+   */
+  handles(id: number, name: Uint8Array, index: number, single = false): number[] | typeof DEFER {
+    const off = this.offsetOf(id);
+    if (off === NO_OFFSET || off === DEFERRED) return DEFER;
+    const b = this.bytes;
+    let i = off - 1;
+    for (let k = 0; k < name.length; k++, i++) if (b[i] !== name[k]) return DEFER;
+    while (isSpace(b[i])) i++;
+    if (b[i] !== LPAREN) return DEFER;
+    this.pos = i + 1;
+    try {
+      for (let k = 0; k < index; k++) {
+        this.skipSpace();
+        // web-ifc leaves '*' out of the arguments, which would shift the index.
+        if (b[this.pos] === STAR) return DEFER;
+        this.skip();
+        this.skipSpace();
+        if (b[this.pos++] !== COMMA) return DEFER;
+      }
+      this.skipSpace();
+      const c = b[this.pos];
+      if (c === DOLLAR) return [];
+      if (c === HASH) {
+        this.pos++;
+        const s = this.pos;
+        const v = this.integer();
+        return this.pos === s ? DEFER : [v];
+      }
+      // A list where one reference is expected: ref() of web-ifc's object decides (undefined).
+      if (c !== LPAREN || single) return DEFER;
+      this.pos++;
+      const out: number[] = [];
+      this.skipSpace();
+      if (b[this.pos] === RPAREN) return out;
+      for (;;) {
+        this.skipSpace();
+        if (b[this.pos] !== HASH) return DEFER;
+        this.pos++;
+        const s = this.pos;
+        out.push(this.integer());
+        if (this.pos === s) return DEFER;
+        this.skipSpace();
+        const d = b[this.pos++];
+        if (d === RPAREN) return out;
+        if (d !== COMMA) return DEFER;
+      }
+    } catch (e) {
+      if (e === defer) return DEFER;
+      throw e;
+    }
+  }
+
+  /** Moves past one argument (string, list, typed value or plain token) without reading it. */
+  private skip(): void {
+    const b = this.bytes;
+    const c = b[this.pos];
+    if (c === QUOTE) {
+      this.string();
+      return;
+    }
+    if (c === LPAREN) {
+      this.pos++;
+      this.skipSpace();
+      if (b[this.pos] === RPAREN) {
+        this.pos++;
+        return;
+      }
+      for (;;) {
+        this.skipSpace();
+        this.skip();
+        this.skipSpace();
+        const d = b[this.pos++];
+        if (d === RPAREN) return;
+        if (d !== COMMA) throw defer;
+      }
+    }
+    // A plain token ($, *, #12, .ENUM., a number) or a typed value's name followed by its argument.
+    const s = this.pos;
+    while (this.pos < b.length) {
+      const d = b[this.pos];
+      if (d === COMMA || d === RPAREN || d === LPAREN || d === QUOTE || d === SEMI || isSpace(d)) break;
+      this.pos++;
+    }
+    if (this.pos === s) throw defer;
+    this.skipSpace();
+    if (b[this.pos] === LPAREN) this.skip();
+  }
+
+  /**
    * The numbers of a one-list line such as IFCCARTESIANPOINT((0.,5.,2.5)) or IFCDIRECTION(...),
    * without building a line object: the hot path of placements. `name` is the entity name as
    * written in capitals; any other name or shape of line answers DEFER (read the line instead).

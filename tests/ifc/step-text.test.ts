@@ -12,7 +12,7 @@ import { ModelContext } from '../../server/ifc/model-context.ts';
 import { openModel } from '../../server/ifc/open-model.ts';
 import { readIfcModel } from '../../server/ifc/read-model.ts';
 import { DEFER, StepText } from '../../server/ifc/step-text.ts';
-import { numList } from '../../server/ifc/step-values.ts';
+import { numList, ref, refs } from '../../server/ifc/step-values.ts';
 import type { ReadStats } from '../../server/ifc/types.ts';
 import { makeSyntheticModel } from '../../scripts/samples/make-samples.ts';
 import { CORPUS_DIR } from './corpus-helpers.ts';
@@ -141,6 +141,54 @@ describe('text reader against web-ifc, line by line', () => {
         o.api.CloseModel(o.modelID);
       }
     }
+  });
+
+  it('relationship references read from the text equal refs() of the line objects', async () => {
+    const classes: [string, number, string, boolean][] = [
+      ['IFCRELDEFINESBYPROPERTIES', 4, 'RelatedObjects', false],
+      ['IFCRELDEFINESBYPROPERTIES', 5, 'RelatingPropertyDefinition', true],
+      ['IFCRELASSOCIATESMATERIAL', 4, 'RelatedObjects', false],
+      ['IFCRELASSOCIATESMATERIAL', 5, 'RelatingMaterial', true],
+      ['IFCRELVOIDSELEMENT', 4, 'RelatingBuildingElement', true],
+      ['IFCRELVOIDSELEMENT', 5, 'RelatedOpeningElement', true],
+    ];
+    const awkward = [
+      "#1=IFCRELDEFINESBYPROPERTIES('2MIeVpa0g_EWWy6iMl$8VT',#5,'a, (b)','it''s',(#10,#11),#12);",
+      "#2=IFCRELDEFINESBYPROPERTIES('2MIeVpa0g_EWWy6iMl$8VU',#5,$,$,(#10),(#12,#13));",
+      "#3=IFCRELASSOCIATESMATERIAL('2MIeVpa0g_EWWy6iMl$8VV',#5,$,$,(#10),(#14));",
+      "#4=IFCRELVOIDSELEMENT('2MIeVpa0g_EWWy6iMl$8VW',#5,*,$,#10,#15);",
+      "#6=IFCRELVOIDSELEMENT('2MIeVpa0g_EWWy6iMl$8VX',#5,$,$,$,#15);",
+      "#7=ifcrelvoidselement('2MIeVpa0g_EWWy6iMl$8VY',#5,$,$,#10,#15);",
+      "#8=IFCRELDEFINESBYPROPERTIES('2MIeVpa0g_EWWy6iMl$8VZ',#5,IFCLABEL('x,y'),$,( #10 , #11 ),#12);",
+      "#9=IFCRELDEFINESBYPROPERTIES('2MIeVpa0g_EWWy6iMl$8Va',#5,$,$,(),#12);",
+      '#10=IFCMEMBER($,$,$,$,$,$,$,$,$);',
+      "#12=IFCPROPERTYSET('2MIeVpa0g_EWWy6iMl$8Vb',#5,'P',$,());",
+    ];
+    const sources = [...files.slice(-4).map(([, load]) => load), () => new TextEncoder().encode(`${header('IFC4')}${awkward.join('\n')}\nENDSEC;\nEND-ISO-10303-21;\n`)];
+    let n = 0;
+    for (const load of sources) {
+      const o = await open(await load());
+      try {
+        for (const id of o.ids) {
+          let l: Record<string, unknown> | null;
+          try {
+            l = (o.api.GetLine(o.modelID, id) as Record<string, unknown>) ?? null;
+          } catch {
+            l = null;
+          }
+          for (const [cls, index, attribute, single] of classes) {
+            const name = new TextEncoder().encode(cls);
+            if (single) expect(o.ctx.refAt(id, name, index, attribute), `#${id} ${attribute}`).toEqual(ref(l?.[attribute]));
+            expect(o.ctx.refsAt(id, name, index, attribute, single), `#${id} ${attribute}`).toEqual(refs(l?.[attribute]));
+            if (o.text.handles(id, name, index, single) !== DEFER) n++;
+          }
+        }
+      } finally {
+        o.api.CloseModel(o.modelID);
+      }
+    }
+    // Most were read from the text (every line is asked for every class: other classes DEFER).
+    expect(n).toBeGreaterThan(100);
   });
 
   it('numbers as parseFloat reads them, over many spellings', async () => {
