@@ -23,6 +23,7 @@ import type { MailService } from './mail/mail-service';
 import { geometryRoutes } from './features/geometry/geometry-routes';
 import { memberColumnsRoutes } from './features/member-columns/member-columns-routes';
 import { exportRoutes } from './features/exports/export-routes';
+import { projectLogRoutes } from './features/project-log/project-log-routes';
 
 export interface AppHandle {
   app: express.Express;
@@ -79,11 +80,12 @@ export function createApp(config: AppConfig, sequelize: Sequelize, logger: Logge
   api.use('/users', userRoutes(sequelize, config, services.mail));
   api.use('/mail', outboxRoutes(services.mail));
   api.use('/projects/:projectId/revisions/:revisionId/comparison', compareRoutes());
-  api.use('/projects/:projectId/revisions/:revisionId/send-critical', sendCriticalRoutes(config, services.mail));
+  api.use('/projects/:projectId/revisions/:revisionId/send-critical', sendCriticalRoutes(sequelize, config, services.mail));
   api.use('/projects/:projectId/revisions/:revisionId/exports', exportRoutes(sequelize, services.store));
   api.use('/projects/:projectId/revisions/:revisionId/geometry', geometryRoutes(services.store));
   api.use('/projects/:projectId/revisions/:revisionId/member-columns', memberColumnsRoutes());
   api.use('/projects/:projectId/revisions/:revisionId', memberRoutes(sequelize));
+  api.use('/projects/:projectId/audit', projectLogRoutes());
   api.use('/projects/:projectId', modelRoutes(sequelize, config, services.store, services.onImportQueued));
   api.use('/projects', projectRoutes(sequelize));
   api.use(apiNotFound);

@@ -10,3 +10,4 @@ export * from './results';
 export * from './members';
 export * from './overrides';
 export * from './mail';
+export * from './project-log';

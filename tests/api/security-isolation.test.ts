@@ -57,6 +57,7 @@ const PROBES: Probe[] = [
   { name: 'CSV export', method: 'get', url: (s) => `${rev(s)}/exports/csv` },
   { name: 'workbook export', method: 'get', url: (s) => `${rev(s)}/exports/xlsx` },
   { name: 'IFC export', method: 'get', url: (s) => `${rev(s)}/exports/ifc` },
+  { name: 'project log', method: 'get', url: (s) => `/api/projects/${s.projectId}/audit` },
 ];
 
 let app: TestApp;
@@ -82,7 +83,7 @@ async function importInto(caller: Caller, projectId: number, bytes: Buffer, mode
   return { modelId: models.body.models[0].id as number, revisionId: up.body.revision.id as number, globalId: members.body.members[0].globalId as string };
 }
 
-/** Everything stored for a project: its row, models, revisions, members, results and forces. */
+/** Everything stored for a project: its row, models, revisions, members, results, forces and log. */
 async function projectState(projectId: number): Promise<unknown> {
   const db = app.dbName;
   const models = await dbQuery(db, 'SELECT * FROM models WHERE project_id = ? ORDER BY id', [projectId]);
@@ -96,6 +97,8 @@ async function projectState(projectId: number): Promise<unknown> {
     members: await dbQuery(db, 'SELECT * FROM members WHERE revision_id IN (?) ORDER BY id', [inRevs]),
     results: await dbQuery(db, 'SELECT c.* FROM check_results c JOIN members m ON m.id = c.member_id WHERE m.revision_id IN (?) ORDER BY c.id', [inRevs]),
     forces: await dbQuery(db, 'SELECT f.* FROM member_forces f JOIN members m ON m.id = f.member_id WHERE m.revision_id IN (?) ORDER BY f.id', [inRevs]),
+    // A refused export or override leaves no entry in the other project's log.
+    log: await dbQuery(db, 'SELECT * FROM audit_entries WHERE project_id = ? ORDER BY id', [projectId]),
   };
 }
 

@@ -103,6 +103,9 @@ const ROUTES: RouteCase[] = [
     expect: adminOnly(204),
   },
 
+  // The project log: the project's engineers and admins; its viewers are refused.
+  { route: 'GET /api/projects/:projectId/audit', expect: writers(200) },
+
   { route: 'GET /api/projects/:projectId/models', expect: readers },
   { route: 'GET /api/projects/:projectId/models/:modelId/revisions', expect: readers },
   { route: 'GET /api/projects/:projectId/revisions/:revisionId', expect: readers },

@@ -12,6 +12,7 @@ import { EXPORT_FORMATS, FORMAT_INFO } from '../../exports/export-formats';
 import { writeExportInWorker } from '../../exports/export-pool';
 import { effectiveQuery, exportFileName } from './export-query';
 import { loadExportBundle, revisionIfcBytes } from './export-service';
+import { recordExport } from './export-audit';
 
 const formatSchema = z.enum(EXPORT_FORMATS);
 
@@ -27,7 +28,8 @@ export function exportRoutes(_sequelize: Sequelize, store: FileStore): Router {
     const parsed = formatSchema.safeParse(req.params.format);
     if (!parsed.success) throw errors.notFound('That export format');
     const format = parsed.data;
-    const project = await findVisibleProject(currentUser(req), parseId(req.params.projectId, 'That project'));
+    const user = currentUser(req);
+    const project = await findVisibleProject(user, parseId(req.params.projectId, 'That project'));
     const revision = await findRevision(project.id, parseId(req.params.revisionId, 'That revision'));
     const query = effectiveQuery(format, parseBody(memberQuerySchema, req.query));
     const bundle = await loadExportBundle(project, revision, query);
@@ -35,6 +37,7 @@ export function exportRoutes(_sequelize: Sequelize, store: FileStore): Router {
     const body = await writeExportInWorker(format, bundle, modelBytes);
     const info = FORMAT_INFO[format];
     const fileName = exportFileName(bundle.modelName, revision.number, query, info.extension);
+    await recordExport(user, project.id, revision, { format, fileName, filterDescription: bundle.filterDescription, members: bundle.members.length, bytes: body.length });
     res.setHeader('Content-Type', info.contentType);
     res.setHeader('Content-Disposition', `attachment; filename="${fileName}"`);
     res.setHeader('Cache-Control', 'no-store');

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import type { Sequelize } from 'sequelize';
 import { sendCriticalRequestSchema } from '@shared/api/mail';
 import type { AppConfig } from '../../config/config';
 import type { MailService } from '../../mail/mail-service';
@@ -9,14 +10,14 @@ import { findRevision } from '../models/model-service';
 import { sendCriticalMembers } from './send-critical-service';
 
 /** POST /api/projects/:projectId/revisions/:revisionId/send-critical (engineers and admins). */
-export function sendCriticalRoutes(config: AppConfig, mail: MailService): Router {
+export function sendCriticalRoutes(sequelize: Sequelize, config: AppConfig, mail: MailService): Router {
   const router = Router({ mergeParams: true });
   router.post('/', requireRole('admin', 'engineer'), async (req, res) => {
     const user = currentUser(req);
     const project = await findEditableProject(user, parseId(req.params.projectId, 'That project'));
     const revision = await findRevision(project.id, parseId(req.params.revisionId, 'That revision'));
     const body = parseBody(sendCriticalRequestSchema, req.body);
-    const sent = await sendCriticalMembers(config, mail, user, project, revision, body);
+    const sent = await sendCriticalMembers(sequelize, config, mail, user, project, revision, body);
     res.status(202).json({ ...sent, message: `${sent.members} member(s) are queued for sending. If the mail service is down, the message waits and is tried again; nothing is lost.` });
   });
   return router;

@@ -23,3 +23,13 @@ export async function findEditableProject(user: SessionUser, projectId: number):
   if (user.role === 'viewer') throw errors.forbidden('Viewers can browse projects but not change them.');
   return project;
 }
+
+/**
+ * Reading the project log: admins, or engineers who are members. Outsiders get "not found"
+ * first (as everywhere), so only a member viewer learns the log exists and is refused.
+ */
+export async function findLogReadableProject(user: SessionUser, projectId: number): Promise<ProjectModel> {
+  const project = await findVisibleProject(user, projectId);
+  if (user.role === 'viewer') throw errors.forbidden('The project log is for engineers and admins.');
+  return project;
+}
