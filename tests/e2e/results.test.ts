@@ -138,6 +138,8 @@ describe('results in the browser', () => {
       expect(await page.getByRole('form', { name: 'Upload a model' }).count()).toBe(0);
       expect(await page.locator('input[type="file"]').count()).toBe(0);
       expect(await page.getByRole('button', { name: /forces file/i }).count()).toBe(0);
+      // …nor the project log, which the server refuses to viewers.
+      expect(await page.getByRole('region', { name: 'Project log' }).count()).toBe(0);
     });
   });
 
@@ -155,6 +157,20 @@ describe('results in the browser', () => {
       await progress.getByRole('link', { name: /Open the results of revision 1/ }).waitFor();
       // The new model is listed with its checked revision.
       await page.getByRole('article', { name: 'Shed uploaded in the browser' }).waitFor();
+
+      // The project log names the upload, who made it, and (filtered to uploads) only uploads.
+      const log = page.getByRole('region', { name: 'Project log' });
+      const entry = log.getByRole('table', { name: /^Project log/ }).locator('tbody tr', { hasText: 'Shed uploaded in the browser, revision 1' });
+      await entry.waitFor();
+      expect(await entry.innerText()).toContain('Ewan Marsh (demo engineer)');
+      expect(await entry.innerText()).toContain('Uploaded a model');
+      await log.getByLabel('Show').selectOption('upload');
+      await log.getByRole('table', { name: /^Project log: \d+ uploads,/ }).waitFor();
+      const actions = await log.locator('tbody th[scope="row"]').allInnerTexts();
+      expect(actions.length).toBeGreaterThan(0);
+      expect(new Set(actions)).toEqual(new Set(['Uploaded a model']));
+      await log.getByLabel('Show').selectOption('export');
+      await log.getByText('Nothing logged yet').waitFor();
 
       // The same bytes again under the same name: said plainly, nothing re-checked.
       await form.getByLabel('IFC file').setInputFiles({ name: 'kestrel-yard-shed.ifc', mimeType: 'application/octet-stream', buffer: SAMPLE });

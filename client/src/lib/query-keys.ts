@@ -36,6 +36,11 @@ export const queryKeys = {
     list: () => ['mail', 'list'] as const,
     message: (mailId: number) => ['mail', 'message', mailId] as const,
   },
+  /** The project log (engineers and admins): pages by kind. */
+  projectLog: {
+    ofProject: (projectId: number) => ['project-log', projectId] as const,
+    page: (projectId: number, query: Record<string, string>) => ['project-log', projectId, query] as const,
+  },
   /** What changed between two revisions. */
   comparison: (projectId: number, revisionId: number, withRevisionId: number) => ['results', projectId, revisionId, 'comparison', withRevisionId] as const,
 };

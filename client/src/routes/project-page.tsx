@@ -5,11 +5,12 @@ import { paths } from '../lib/paths';
 import { Panel } from '../ui';
 import { ProjectOverview } from '../features/projects';
 import { ModelsList, UploadForm, useModels } from '../features/models';
+import { ProjectLog } from '../features/project-log';
 import { useSignedInUser } from './guards';
 import { positiveId } from './route-ids';
 import { NotFoundPage } from './not-found-page';
 
-/** A project: its settings, its models with their revisions and import jobs, and (for engineers) uploads. */
+/** A project: its settings, its models with their revisions and import jobs, and (for engineers) uploads and the project log. */
 export function ProjectPage() {
   usePageTitle('Project');
   const id = positiveId(useParams().projectId);
@@ -21,6 +22,7 @@ export function ProjectPage() {
       </p>
       <ProjectOverview projectId={id} key={id}>
         <ProjectModels projectId={id} />
+        <ProjectLogSection projectId={id} />
       </ProjectOverview>
     </>
   );
@@ -49,5 +51,16 @@ function ProjectModels({ projectId }: { projectId: number }) {
         </Panel>
       )}
     </div>
+  );
+}
+
+/** Who did what in the project; the server refuses it to viewers, so they are not offered it. */
+function ProjectLogSection({ projectId }: { projectId: number }) {
+  const user = useSignedInUser();
+  if (!EDITING_ROLES.includes(user.role)) return null;
+  return (
+    <Panel title="Project log" description="Uploads, member changes, forces tables, exports and mails sent in this project: who, when and why, newest first.">
+      <ProjectLog projectId={projectId} />
+    </Panel>
   );
 }

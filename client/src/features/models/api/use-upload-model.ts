@@ -29,6 +29,8 @@ export function useUploadModel(projectId: number) {
     },
     onSuccess: (answer) => {
       queryClient.setQueryData(queryKeys.models.revision(projectId, answer.revision.id), answer.revision);
+      // The upload is an entry in the project log shown on the same page.
+      void queryClient.invalidateQueries({ queryKey: queryKeys.projectLog.ofProject(projectId) });
       return queryClient.invalidateQueries({ queryKey: queryKeys.models.ofProject(projectId) });
     },
     onSettled: () => setSent(null),
