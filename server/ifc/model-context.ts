@@ -124,6 +124,23 @@ export class ModelContext {
     return refs(this.line(id)?.[attribute]);
   }
 
+  /**
+   * ref() of each of the first `count` attributes of a line of class `name`, when all of them
+   * are plain references or '$' in the text; null when the line must be read as an object
+   * (no text, another class, anything else in those arguments).
+   */
+  refsFromText(id: number, name: Uint8Array, count: number): (number | undefined)[] | null {
+    if (!this.text || id <= 0) return null;
+    const out: (number | undefined)[] = [];
+    for (let k = 0; k < count; k++) {
+      const r = this.text.handles(id, name, k, true);
+      if (r === DEFER) return null;
+      out.push(r[0]);
+    }
+    this.linesRead++;
+    return out;
+  }
+
   /** ref() of a single-reference attribute, as refsAt reads it. */
   refAt(id: number, name: Uint8Array, index: number, attribute: string): number | undefined {
     if (this.text && id > 0) {

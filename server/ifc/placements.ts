@@ -31,8 +31,19 @@ function orthoFrame(z: Vec3, xHint: Vec3): { x: Vec3; y: Vec3; z: Vec3 } {
   return { x, y: cross(z, x), z };
 }
 
+const AXIS2PLACEMENT3D = new TextEncoder().encode('IFCAXIS2PLACEMENT3D');
+const LOCALPLACEMENT = new TextEncoder().encode('IFCLOCALPLACEMENT');
+
 /** IfcAxis2Placement3D or IfcAxis2Placement2D → matrix (mm). Missing → identity. */
 export function axisPlacement(ctx: ModelContext, id: number | undefined): Mat4 {
+  // The common case, an IfcAxis2Placement3D of plain references, without a line object.
+  const refs3d = id === undefined ? null : ctx.refsFromText(id, AXIS2PLACEMENT3D, 3);
+  if (refs3d) {
+    const [location, axis, refDirection] = refs3d;
+    const z = direction(ctx, axis, [0, 0, 1]);
+    const f = orthoFrame(z, direction(ctx, refDirection, [1, 0, 0]));
+    return fromAxes(pointMm(ctx, location), f.x, f.y, f.z);
+  }
   const p = ctx.line(id);
   if (!p) return IDENTITY.slice();
   const origin = pointMm(ctx, ref(p.Location));
@@ -57,10 +68,11 @@ export function objectPlacement(ctx: ModelContext, id: number | undefined, depth
   const hit = cache.get(id);
   if (hit) return hit;
   let m: Mat4;
-  const p = ctx.line(id);
-  if (p && ctx.className(id).toUpperCase() === 'IFCLOCALPLACEMENT' && depth < 64) {
-    const rel = axisPlacement(ctx, ref(p.RelativePlacement));
-    const parent = ref(p.PlacementRelTo);
+  const refsLocal = depth < 64 ? ctx.refsFromText(id, LOCALPLACEMENT, 2) : null;
+  const p = refsLocal ? null : ctx.line(id);
+  if (refsLocal || (p && ctx.className(id).toUpperCase() === 'IFCLOCALPLACEMENT' && depth < 64)) {
+    const rel = axisPlacement(ctx, refsLocal ? refsLocal[1] : ref(p.RelativePlacement));
+    const parent = refsLocal ? refsLocal[0] : ref(p.PlacementRelTo);
     m = parent !== undefined ? multiply(objectPlacement(ctx, parent, depth + 1), rel) : rel;
   } else {
     // Grid or linear placements: let web-ifc resolve them (file units) and scale.

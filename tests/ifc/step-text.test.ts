@@ -6,10 +6,11 @@ import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import type { IfcAPI } from 'web-ifc';
+import { IFCAXIS2PLACEMENT3D, IFCLOCALPLACEMENT, type IfcAPI } from 'web-ifc';
 import { getIfcApi } from '../../server/ifc/ifc-api.ts';
 import { ModelContext } from '../../server/ifc/model-context.ts';
 import { openModel } from '../../server/ifc/open-model.ts';
+import { axisPlacement, objectPlacement } from '../../server/ifc/placements.ts';
 import { readIfcModel } from '../../server/ifc/read-model.ts';
 import { DEFER, StepText } from '../../server/ifc/step-text.ts';
 import { numList, ref, refs } from '../../server/ifc/step-values.ts';
@@ -151,6 +152,12 @@ describe('text reader against web-ifc, line by line', () => {
       ['IFCRELASSOCIATESMATERIAL', 5, 'RelatingMaterial', true],
       ['IFCRELVOIDSELEMENT', 4, 'RelatingBuildingElement', true],
       ['IFCRELVOIDSELEMENT', 5, 'RelatedOpeningElement', true],
+      // Placements (ModelContext.refsFromText) read the same way.
+      ['IFCAXIS2PLACEMENT3D', 0, 'Location', true],
+      ['IFCAXIS2PLACEMENT3D', 1, 'Axis', true],
+      ['IFCAXIS2PLACEMENT3D', 2, 'RefDirection', true],
+      ['IFCLOCALPLACEMENT', 0, 'PlacementRelTo', true],
+      ['IFCLOCALPLACEMENT', 1, 'RelativePlacement', true],
     ];
     const awkward = [
       "#1=IFCRELDEFINESBYPROPERTIES('2MIeVpa0g_EWWy6iMl$8VT',#5,'a, (b)','it''s',(#10,#11),#12);",
@@ -163,6 +170,13 @@ describe('text reader against web-ifc, line by line', () => {
       "#9=IFCRELDEFINESBYPROPERTIES('2MIeVpa0g_EWWy6iMl$8Va',#5,$,$,(),#12);",
       '#10=IFCMEMBER($,$,$,$,$,$,$,$,$);',
       "#12=IFCPROPERTYSET('2MIeVpa0g_EWWy6iMl$8Vb',#5,'P',$,());",
+      '#20=IFCAXIS2PLACEMENT3D(#21,$,$);',
+      '#21=IFCCARTESIANPOINT((0.,0.,0.));',
+      '#22=IFCAXIS2PLACEMENT3D($,#23,#23);',
+      '#23=IFCDIRECTION((0.,0.,1.));',
+      '#24=IFCAXIS2PLACEMENT3D(#21);',
+      '#25=IFCLOCALPLACEMENT($,#20);',
+      '#26=IFCLOCALPLACEMENT(#25,(#20));',
     ];
     const sources = [...files.slice(-4).map(([, load]) => load), () => new TextEncoder().encode(`${header('IFC4')}${awkward.join('\n')}\nENDSEC;\nEND-ISO-10303-21;\n`)];
     let n = 0;
@@ -188,6 +202,28 @@ describe('text reader against web-ifc, line by line', () => {
       }
     }
     // Most were read from the text (every line is asked for every class: other classes DEFER).
+    expect(n).toBeGreaterThan(100);
+  });
+
+  it('placements read from the text equal placements from web-ifc line objects', async () => {
+    let n = 0;
+    for (const [, load] of files.slice(-4)) {
+      const o = await open(await load());
+      try {
+        const schema = o.ctx.schema;
+        const units = { lengthUnitName: 'mm', lengthToMm: 1, forceUnitName: 'N', forceToN: 1, pressureUnitName: 'Pa', pressureToMPa: 1e-6, areaToMm2: 1 };
+        const viaWebIfc = new ModelContext(o.api, o.modelID, schema, undefined, null);
+        o.ctx.units = units;
+        viaWebIfc.units = units;
+        for (const id of o.api.GetLineIDsWithType(o.modelID, IFCLOCALPLACEMENT)) {
+          expect(objectPlacement(o.ctx, id), `#${id}`).toEqual(objectPlacement(viaWebIfc, id));
+          n++;
+        }
+        for (const id of o.api.GetLineIDsWithType(o.modelID, IFCAXIS2PLACEMENT3D)) expect(axisPlacement(o.ctx, id), `#${id}`).toEqual(axisPlacement(viaWebIfc, id));
+      } finally {
+        o.api.CloseModel(o.modelID);
+      }
+    }
     expect(n).toBeGreaterThan(100);
   });
 
