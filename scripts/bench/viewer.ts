@@ -83,6 +83,11 @@ async function main(): Promise<void> {
     const done = await waitFor(() => engineer.call('get', `/api/projects/${projectId}/revisions/${revisionId}`), (r) => ['done', 'failed'].includes(r.body.status), 1_800_000, 1000);
     if (done.body.status !== 'done') throw new Error(`import: ${JSON.stringify(done.body)}`);
     console.log(`import through the app: ${secs(performance.now() - t)} (timings ${JSON.stringify(done.body.summary?.timings)})`);
+    // The display geometry is built after the results are stored; the view is measured once it is ready.
+    t = performance.now();
+    const ready = await waitFor(() => engineer.call('get', `/api/projects/${projectId}/revisions/${revisionId}`), (r) => r.body.summary?.geometry !== 'pending', 3_600_000, 1000);
+    if (ready.body.summary?.geometry !== 'ready') throw new Error(`display geometry: ${JSON.stringify(ready.body.summary?.geometry)}`);
+    console.log(`3D view ready ${secs(performance.now() - t)} after the results`);
 
     const context = await browser.newContext({ baseURL: app.url, viewport: { width: 1400, height: 1000 } });
     const page = await context.newPage();
