@@ -76,6 +76,7 @@ async function childDirect(file: string): Promise<void> {
   const { runImportTask } = await import('../../server/imports/run-import-task.ts');
   const { getIfcApi } = await import('../../server/ifc/ifc-api.ts');
   const { storeOutcome } = await import('../../server/imports/store-outcome.ts');
+  const { toStorable } = await import('../../server/imports/storable-member.ts');
   const { loadConfig } = await import('../../server/config/config.ts');
   const { createDatabase } = await import('../../server/db/database.ts');
   const { ProjectModel } = await import('../../server/db/models/project.ts');
@@ -109,11 +110,13 @@ async function childDirect(file: string): Promise<void> {
   take();
   if (!outcome.ok) throw new Error(`import failed: ${outcome.failure.message}`);
   let t = performance.now();
-  // The worker hands its outcome over as a structured clone; v8.serialize is the same format.
-  const cloneBytes = serialize({ ...outcome, geometry: null }).length;
+  // The worker serialises each member's detail and result (storable-member.ts), then hands the
+  // outcome over as a structured clone; v8.serialize is the same format. Both are counted here.
+  const storable = outcome.members.map(toStorable);
+  const cloneBytes = serialize({ ...outcome, members: storable }).length;
   const cloneMs = performance.now() - t;
   t = performance.now();
-  const kept = await storeOutcome(sequelize, revision.id, 'bench-direct', 'as4100', outcome.summary, outcome.members);
+  const kept = await storeOutcome(sequelize, revision.id, 'bench-direct', 'as4100', outcome.summary, storable);
   const storeMs = performance.now() - t;
   clearInterval(timer);
   take();
@@ -140,6 +143,7 @@ async function childSeed(file: string, projectId: number): Promise<void> {
   const { checkModel } = await import('../../server/imports/check-members.ts');
   const { summarise } = await import('../../server/imports/summarise.ts');
   const { storeOutcome } = await import('../../server/imports/store-outcome.ts');
+  const { toStorable } = await import('../../server/imports/storable-member.ts');
   const { loadConfig } = await import('../../server/config/config.ts');
   const { createDatabase } = await import('../../server/db/database.ts');
   const { ProjectModel } = await import('../../server/db/models/project.ts');
@@ -156,7 +160,7 @@ async function childSeed(file: string, projectId: number): Promise<void> {
   const t0 = performance.now();
   const extracted = await readIfcModel(await readUploadBytes(file, 'ifc', 1e12));
   const members = checkModel(extracted, { standard: project.standard, defaultGrade: project.defaultGrade });
-  const kept = await storeOutcome(sequelize, revision.id, 'bench-seed', project.standard, summarise(extracted, members, {}), members);
+  const kept = await storeOutcome(sequelize, revision.id, 'bench-seed', project.standard, summarise(extracted, members, {}), members.map(toStorable));
   if (!kept) throw new Error('storeOutcome did not keep the result');
   await sequelize.close();
   report({ revisionId: revision.id, ms: performance.now() - t0 });

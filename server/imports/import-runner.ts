@@ -16,7 +16,8 @@ import { ProjectModel } from '../db/models/project';
 import type { StandardId } from '@shared/api/projects';
 import { claimNextJob, failJob, heartbeat, reportProgress } from './job-claims';
 import { storeOutcome } from './store-outcome';
-import type { ImportOutcome, ImportTask, ProgressMessage } from './run-import-task';
+import type { ImportTask, ProgressMessage } from './run-import-task';
+import type { StorableImportOutcome } from './storable-member';
 import type { GeometryOutcome, GeometryTask } from './run-geometry-task';
 import type { RevisionSummary } from '@shared/api/models';
 import { geometryGzipKey, geometryKey } from '../features/geometry/geometry-key';
@@ -107,7 +108,8 @@ export class ImportRunner {
         return;
       }
       local = await this.store.fetchToLocal(job.storageKey);
-      const task: ImportTask = {
+      const task: ImportTask & { job: 'import-for-store' } = {
+        job: 'import-for-store',
         filePath: local.path,
         kind: job.storageKey.endsWith('.ifczip') ? 'ifczip' : 'ifc',
         standard: job.standard as StandardId,
@@ -116,7 +118,7 @@ export class ImportRunner {
         progressPort: channel.port2,
         forceRows,
       };
-      const outcome: ImportOutcome = await this.pool.run(task, {
+      const outcome: StorableImportOutcome = await this.pool.run(task, {
         transferList: [channel.port2] as never,
         signal: AbortSignal.timeout(this.config.imports.timeLimitMs),
       });

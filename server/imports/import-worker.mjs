@@ -4,9 +4,12 @@ import { register } from 'tsx/esm/api';
 
 register();
 const importTask = import('./run-import-task.ts');
+const importForStore = import('./storable-member.ts');
 const geometryTask = import('./run-geometry-task.ts');
 
 export default async function importWorker(task) {
   if (task.job === 'geometry') return (await geometryTask).runGeometryTask(task);
+  // The app's runner takes members ready to store; the command line takes them as objects.
+  if (task.job === 'import-for-store') return (await importForStore).runImportTaskForStore(task);
   return (await importTask).runImportTask(task);
 }

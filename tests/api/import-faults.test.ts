@@ -11,6 +11,7 @@ import { waitFor } from '../support/wait-for';
 import { testDbServer } from '../support/test-db';
 import { makeSyntheticModel } from '../../scripts/samples/make-samples';
 import { sharedEnvOf, spawnApp, type AppProcess } from '../support/spawn-app';
+import { replicateModel } from '../support/replicate-model';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
@@ -49,8 +50,8 @@ async function revisionRows(dbName: string): Promise<{ id: number; status: strin
 }
 
 beforeAll(async () => {
-  // Large enough that reading it takes a few seconds on this machine.
-  big = Buffer.from(await makeSyntheticModel(3000));
+  // Large enough that reading it takes several times the suite's 2 s limit: 3 × 3,000 members.
+  big = replicateModel(await makeSyntheticModel(3000), 3);
 }, 120_000);
 
 // One in-process app at a time (Sequelize models are per process): stop each test's apps
@@ -68,7 +69,7 @@ afterAll(async () => {
 
 describe('import faults', () => {
   it('stops a job at its time limit and keeps the pool working for the next one', async () => {
-    const app = await start({ IMPORT_TIME_LIMIT_SECONDS: '4' });
+    const app = await start({ IMPORT_TIME_LIMIT_SECONDS: '2' });
     const engineer = await signIn(app.url, DEMO.engineer);
     const pid = await projectOf(engineer);
     const warm = await upload(engineer, pid, SAMPLE, 'warm-up.ifc');
