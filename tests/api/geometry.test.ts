@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import { gunzipSync } from 'node:zlib';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type request from 'supertest';
+import { rawBody } from '../support/raw-body';
 import { startTestApp, type TestApp } from '../support/test-app';
 import { signIn, anonymous, DEMO, type Caller } from '../support/api-client';
 import { waitFor } from '../support/wait-for';
@@ -23,13 +23,7 @@ let projectId: number;
 let revisionId: number;
 let base: string;
 
-/** Reads the body as bytes whatever the content type. */
-const binary = (req: request.Test) =>
-  req.buffer(true).parse((res, done) => {
-    const chunks: Buffer[] = [];
-    res.on('data', (c: Buffer) => chunks.push(c));
-    res.on('end', () => done(null, Buffer.concat(chunks)));
-  });
+const binary = rawBody;
 
 beforeAll(async () => {
   app = await startTestApp({ IMPORT_POLL_MS: '100' });

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type request from 'supertest';
+import { rawBody } from '../support/raw-body';
 import type { MemberRow } from '@shared/api';
 import { decodeMemberColumns, memberColumnsSchema } from '@shared/api/member-columns';
 import { startTestApp, type TestApp } from '../support/test-app';
@@ -23,13 +23,7 @@ let projectId: number;
 let revisionId: number;
 let base: string;
 
-/** The body as bytes (supertest unzips a gzip body on the way; Content-Length tells the size sent). */
-const raw = (req: request.Test) =>
-  req.buffer(true).parse((res, done) => {
-    const chunks: Buffer[] = [];
-    res.on('data', (c: Buffer) => chunks.push(c));
-    res.on('end', () => done(null, Buffer.concat(chunks)));
-  });
+const raw = rawBody;
 
 async function columns(caller: Caller): Promise<{ rows: MemberRow[]; etag: string }> {
   const res = await caller.agent.get(`${base}/member-columns`);

@@ -8,12 +8,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import type { MemberRow } from '@shared/api';
 import { CHANGE_PRECEDENCE, CHANGE_STYLE, changeLookOf } from '@shared/compare/change-look';
 import type { ChangeKind } from '@shared/compare/compare-revisions';
 import { startTestApp, type TestApp } from '../support/test-app';
-import { launchBrowser } from '../support/browser';
+import { inSignedInPage, launchBrowser } from '../support/browser';
 import { signIn, DEMO, type Caller } from '../support/api-client';
 import { importEnded, importSample, uploadFile } from '../support/imports';
 import { censusOfCanvas } from '../support/canvas-census';
@@ -21,7 +21,6 @@ import { censusOfCanvas } from '../support/canvas-census';
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
 const FORCES = readFileSync(path.join(root, 'samples/kestrel-yard-forces.csv'), 'utf8');
-const PASSWORD = 'gaugeline-demo';
 const SHOTS = path.join(root, '.test-data', 'screenshots');
 /** Wall brace east (tag EB1): in revision 2 it has a new GlobalId and tag, so it is taken out and a new member put in. */
 const TAKEN_OUT = '3I5qe2dofLtFBFIakaWyri';
@@ -99,24 +98,7 @@ afterAll(async () => {
   await app?.stop();
 });
 
-async function asArchitect(run: (page: Page) => Promise<void>): Promise<void> {
-  const context: BrowserContext = await browser.newContext({ baseURL: app.url, viewport: { width: 1400, height: 1000 } });
-  const page = await context.newPage();
-  const problems: string[] = [];
-  page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-  try {
-    await page.goto('/sign-in');
-    const form = page.getByRole('form', { name: 'Sign in' });
-    await form.getByLabel('E-mail address').fill(DEMO.viewer);
-    await form.getByLabel('Password', { exact: true }).fill(PASSWORD);
-    await form.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
-    await run(page);
-    expect(problems).toEqual([]);
-  } finally {
-    await context.close();
-  }
-}
+const asArchitect = (run: (page: Page) => Promise<void>) => inSignedInPage(browser, app.url, DEMO.viewer, run);
 
 const CHANGE_COLOURS = CHANGE_PRECEDENCE.map((kind) => ({ band: kind, colour: CHANGE_STYLE[kind].colour }));
 /** Kind each changed member is drawn as (by the same function the view uses). */

@@ -6,10 +6,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import { BAND_STYLE, RESULT_BANDS, type MemberRow, type ResultBand } from '@shared/api';
 import { startTestApp, type TestApp } from '../support/test-app';
-import { launchBrowser } from '../support/browser';
+import { inSignedInPage, launchBrowser } from '../support/browser';
 import { signIn, DEMO, type Caller } from '../support/api-client';
 import { importSample } from '../support/imports';
 import { censusOfCanvas } from '../support/canvas-census';
@@ -17,7 +17,6 @@ import { censusOfCanvas } from '../support/canvas-census';
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
 const FORCES = readFileSync(path.join(root, 'samples/kestrel-yard-forces.csv'), 'utf8');
-const PASSWORD = 'gaugeline-demo';
 const SHOTS = path.join(root, '.test-data', 'screenshots');
 
 let app: TestApp;
@@ -43,24 +42,7 @@ afterAll(async () => {
   await app?.stop();
 });
 
-async function asArchitect(run: (page: Page) => Promise<void>): Promise<void> {
-  const context: BrowserContext = await browser.newContext({ baseURL: app.url, viewport: { width: 1400, height: 1000 } });
-  const page = await context.newPage();
-  const problems: string[] = [];
-  page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-  try {
-    await page.goto('/sign-in');
-    const form = page.getByRole('form', { name: 'Sign in' });
-    await form.getByLabel('E-mail address').fill(DEMO.viewer);
-    await form.getByLabel('Password', { exact: true }).fill(PASSWORD);
-    await form.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
-    await run(page);
-    expect(problems).toEqual([]);
-  } finally {
-    await context.close();
-  }
-}
+const asArchitect = (run: (page: Page) => Promise<void>) => inSignedInPage(browser, app.url, DEMO.viewer, run);
 
 describe('3D model view', () => {
   it('shows members in several band colours, and a click picks a member into the card and the ledger', async () => {

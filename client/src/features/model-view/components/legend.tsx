@@ -1,6 +1,7 @@
 import type { CSSProperties } from 'react';
 import { BAND_STYLE, RESULT_BANDS, type ResultBand } from '@shared/api';
 import { CONTEXT_STYLE, NOT_CHECKED_STYLE } from '../scene/member-look';
+import { KeyLine } from './key-line';
 
 /** A band's swatch, from the same BAND_STYLE the 3D colours come from; the second cue matches the view. */
 function swatch(band: ResultBand): CSSProperties {
@@ -22,47 +23,25 @@ interface LegendProps {
 
 /** The key of the view; each line also shows or hides what it names. */
 export function ModelLegend({ counts, shownBands, onToggleBand, unchecked, context }: LegendProps) {
-  const row = 'flex w-full items-center gap-2 rounded-control px-1.5 py-1 text-left text-small hover:bg-ledger aria-[pressed=false]:opacity-55';
   return (
     <div className="print:[print-color-adjust:exact]">
       <p className="ledger-label mb-1">Key · press to show or hide</p>
       <ul aria-label="Result bands in the model" className="flex flex-col">
         {RESULT_BANDS.map((band) => (
-          <li key={band}>
-            <button type="button" className={row} aria-pressed={shownBands.has(band)} onClick={() => onToggleBand(band)} data-band={band}>
-              <span aria-hidden="true" className="inline-block size-4 shrink-0 rounded-[2px] border border-ink/30" style={swatch(band)} />
-              <span className="min-w-0 flex-1">
-                <span className={band === 'over' || band === 'tight' ? 'font-semibold' : undefined}>{BAND_STYLE[band].label}</span>
-                <span className="block text-fine text-muted">
-                  {BAND_STYLE[band].description}
-                  {CUE[band] ? ` · ${CUE[band]}` : ''}
-                </span>
-              </span>
-              <span className="figures font-semibold">{counts[band]}</span>
-            </button>
-          </li>
+          <KeyLine
+            key={band}
+            swatch={swatch(band)}
+            label={<span className={band === 'over' || band === 'tight' ? 'font-semibold' : undefined}>{BAND_STYLE[band].label}</span>}
+            description={`${BAND_STYLE[band].description}${CUE[band] ? ` · ${CUE[band]}` : ''}`}
+            count={counts[band]}
+            shown={shownBands.has(band)}
+            onToggle={() => onToggleBand(band)}
+            data={{ 'data-band': band }}
+          />
         ))}
-        <li>
-          <button type="button" className={row} aria-pressed={unchecked.shown} onClick={unchecked.onToggle}>
-            <span aria-hidden="true" className="inline-block size-4 shrink-0 rounded-[2px] border border-ink/30" style={{ backgroundColor: NOT_CHECKED_STYLE.colour, opacity: 0.45 }} />
-            <span className="min-w-0 flex-1">
-              {NOT_CHECKED_STYLE.label}
-              <span className="block text-fine text-muted">{NOT_CHECKED_STYLE.description}</span>
-            </span>
-            <span className="figures font-semibold">{unchecked.count}</span>
-          </button>
-        </li>
+        <KeyLine swatch={{ backgroundColor: NOT_CHECKED_STYLE.colour, opacity: 0.45 }} label={NOT_CHECKED_STYLE.label} description={NOT_CHECKED_STYLE.description} count={unchecked.count} shown={unchecked.shown} onToggle={unchecked.onToggle} />
         {context.count > 0 && (
-          <li>
-            <button type="button" className={row} aria-pressed={context.shown} onClick={context.onToggle}>
-              <span aria-hidden="true" className="inline-block size-4 shrink-0 rounded-[2px] border border-ink/30" style={{ backgroundColor: CONTEXT_STYLE.colour, opacity: 0.3 }} />
-              <span className="min-w-0 flex-1">
-                {CONTEXT_STYLE.label}
-                <span className="block text-fine text-muted">{CONTEXT_STYLE.description}</span>
-              </span>
-              <span className="figures font-semibold">{context.count}</span>
-            </button>
-          </li>
+          <KeyLine swatch={{ backgroundColor: CONTEXT_STYLE.colour, opacity: 0.3 }} label={CONTEXT_STYLE.label} description={CONTEXT_STYLE.description} count={context.count} shown={context.shown} onToggle={context.onToggle} />
         )}
       </ul>
     </div>

@@ -3,6 +3,7 @@ import { Link } from 'react-router';
 import { CONTEXT_STYLE, NOT_CHECKED_STYLE } from '../scene/member-look';
 import type { MemberOverlay, OverlayEntry } from '../scene/member-overlay';
 import type { OverlayView } from '../hooks/use-overlay-view';
+import { KeyLine } from './key-line';
 
 /** A key line's swatch, in the very colour the entries are painted with; outlined entries are outlined here too. */
 function swatch(entry: OverlayEntry): CSSProperties {
@@ -18,47 +19,25 @@ interface OverlayLegendProps {
 /** The key of the overlay, drawn from the same entries the 3D colours come from; each line shows or hides what it names. */
 export function OverlayLegend({ view, rest, context }: OverlayLegendProps) {
   const { overlay, layers } = view;
-  const row = 'flex w-full items-center gap-2 rounded-control px-1.5 py-1 text-left text-small hover:bg-ledger aria-[pressed=false]:opacity-55';
   return (
     <div className="print:[print-color-adjust:exact]" data-testid="model-view-overlay-key">
       <p className="ledger-label mb-1">{overlay.title} · press to show or hide</p>
       <ul aria-label={`Key: ${overlay.title}`} className="flex flex-col">
         {overlay.entries.map((entry, k) => (
-          <li key={entry.id}>
-            <button type="button" className={row} aria-pressed={!view.hidden.has(k)} onClick={() => view.toggle(k)} data-overlay-entry={entry.id}>
-              <span aria-hidden="true" className="inline-block size-4 shrink-0 rounded-[2px] border border-ink/30" style={swatch(entry)} />
-              <span className="min-w-0 flex-1">
-                <span className={entry.outlined ? 'font-semibold' : undefined}>{entry.label}</span>
-                <span className="block text-fine text-muted">
-                  {entry.description}
-                  {entry.outlined ? ' · outlined' : ''}
-                </span>
-              </span>
-              <span className="figures font-semibold">{layers.counts[k]}</span>
-            </button>
-          </li>
+          <KeyLine
+            key={entry.id}
+            swatch={swatch(entry)}
+            label={<span className={entry.outlined ? 'font-semibold' : undefined}>{entry.label}</span>}
+            description={`${entry.description}${entry.outlined ? ' · outlined' : ''}`}
+            count={layers.counts[k]}
+            shown={!view.hidden.has(k)}
+            onToggle={() => view.toggle(k)}
+            data={{ 'data-overlay-entry': entry.id }}
+          />
         ))}
-        <li>
-          <button type="button" className={row} aria-pressed={rest.shown} onClick={rest.onToggle}>
-            <span aria-hidden="true" className="inline-block size-4 shrink-0 rounded-[2px] border border-ink/30" style={{ backgroundColor: NOT_CHECKED_STYLE.colour, opacity: 0.45 }} />
-            <span className="min-w-0 flex-1">
-              {overlay.rest.label}
-              <span className="block text-fine text-muted">{overlay.rest.description}</span>
-            </span>
-            <span className="figures font-semibold">{layers.rest}</span>
-          </button>
-        </li>
+        <KeyLine swatch={{ backgroundColor: NOT_CHECKED_STYLE.colour, opacity: 0.45 }} label={overlay.rest.label} description={overlay.rest.description} count={layers.rest} shown={rest.shown} onToggle={rest.onToggle} />
         {layers.contextCount > 0 && (
-          <li>
-            <button type="button" className={row} aria-pressed={context.shown} onClick={context.onToggle}>
-              <span aria-hidden="true" className="inline-block size-4 shrink-0 rounded-[2px] border border-ink/30" style={{ backgroundColor: CONTEXT_STYLE.colour, opacity: 0.3 }} />
-              <span className="min-w-0 flex-1">
-                {CONTEXT_STYLE.label}
-                <span className="block text-fine text-muted">{CONTEXT_STYLE.description}</span>
-              </span>
-              <span className="figures font-semibold">{layers.contextCount}</span>
-            </button>
-          </li>
+          <KeyLine swatch={{ backgroundColor: CONTEXT_STYLE.colour, opacity: 0.3 }} label={CONTEXT_STYLE.label} description={CONTEXT_STYLE.description} count={layers.contextCount} shown={context.shown} onToggle={context.onToggle} />
         )}
       </ul>
       {overlay.note && <p className="mt-1 px-1.5 text-fine text-muted">{overlay.note}</p>}
