@@ -5,19 +5,17 @@
 // in the ledger and on the sheet.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import { JOB_STATUS_LABELS, type MemberRow } from '@shared/api';
 import { startTestApp, type TestApp } from '../support/test-app';
-import { launchBrowser } from '../support/browser';
+import { inSignedInPage, launchBrowser } from '../support/browser';
 import { signIn, DEMO, type Caller } from '../support/api-client';
 import { importSample } from '../support/imports';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
-const PASSWORD = 'gaugeline-demo';
 
 let app: TestApp;
 let browser: Browser;
@@ -39,30 +37,7 @@ afterAll(async () => {
   await app?.stop();
 });
 
-async function withPage(email: string, run: (page: Page) => Promise<void>): Promise<void> {
-  const context: BrowserContext = await browser.newContext({ baseURL: app.url, viewport: { width: 1400, height: 900 } });
-  const page = await context.newPage();
-  const problems: string[] = [];
-  page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-  try {
-    await page.goto('/sign-in');
-    const form = page.getByRole('form', { name: 'Sign in' });
-    await form.getByLabel('E-mail address').fill(email);
-    await form.getByLabel('Password', { exact: true }).fill(PASSWORD);
-    await form.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
-    await run(page);
-    expect(problems).toEqual([]);
-  } catch (error) {
-    // Keep what the page looked like, for whoever reads the failure.
-    const shot = path.join(os.tmpdir(), `gaugeline-e2e-results-${Date.now()}.png`);
-    await page.screenshot({ path: shot, fullPage: true }).catch(() => undefined);
-    console.error(`screenshot of the failing page: ${shot}; page problems: ${problems.join('; ') || 'none'}`);
-    throw error;
-  } finally {
-    await context.close();
-  }
-}
+const withPage = (email: string, run: (page: Page) => Promise<void>) => inSignedInPage(browser, app.url, email, run, { width: 1400, height: 900 });
 
 const ledger = (page: Page) => page.getByRole('table', { name: /^Members of this revision/ });
 const rowOf = (page: Page, globalId: string) => ledger(page).locator(`tr[data-global-id="${globalId}"]`);

@@ -1,3 +1,5 @@
+import os from 'node:os';
+import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { DEMO_PASSWORD } from '../../server/db/seed/demo-seed';
 
@@ -22,10 +24,17 @@ export async function launchBrowser(): Promise<Browser> {
 
 /**
  * Signs in through the page in a fresh browser context, runs `run`, and fails the test on any
- * uncaught page error; the context is closed whatever happens.
+ * uncaught page error; on failure a full-page screenshot is kept (its path is printed) for
+ * whoever reads the failure. The context is closed whatever happens.
  */
-export async function inSignedInPage(browser: Browser, baseURL: string, email: string, run: (page: Page) => Promise<void>): Promise<void> {
-  const context: BrowserContext = await browser.newContext({ baseURL, viewport: { width: 1400, height: 1000 } });
+export async function inSignedInPage(
+  browser: Browser,
+  baseURL: string,
+  email: string,
+  run: (page: Page) => Promise<void>,
+  viewport = { width: 1400, height: 1000 },
+): Promise<void> {
+  const context: BrowserContext = await browser.newContext({ baseURL, viewport });
   const page = await context.newPage();
   const problems: string[] = [];
   page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
@@ -38,6 +47,11 @@ export async function inSignedInPage(browser: Browser, baseURL: string, email: s
     await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
     await run(page);
     if (problems.length) throw new Error(problems.join('\n'));
+  } catch (error) {
+    const shot = path.join(os.tmpdir(), `gaugeline-e2e-${Date.now()}.png`);
+    await page.screenshot({ path: shot, fullPage: true }).catch(() => undefined);
+    console.error(`screenshot of the failing page: ${shot}; page problems: ${problems.join('; ') || 'none'}`);
+    throw error;
   } finally {
     await context.close();
   }
