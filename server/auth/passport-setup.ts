@@ -1,8 +1,10 @@
+import type { IncomingMessage } from 'node:http';
 import passport from 'passport';
 import { QueryTypes } from 'sequelize';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { UserModel } from '../db/models/user';
 import { decoyPasswordHash, verifyPassword } from './passwords';
+import { takeAccount, type AccountRow } from './account-read-ahead';
 import type { SessionUser } from '@shared/api/session';
 
 declare global {
@@ -37,13 +39,13 @@ export function configurePassport(): passport.PassportStatic {
   );
   passport.serializeUser((user, done) => done(null, user.id));
   // Re-read the account on every request so role changes and deactivation take effect at once.
-  passport.deserializeUser(async (id: number, done) => {
+  passport.deserializeUser(async (req: IncomingMessage, id: number, done: (err: unknown, user?: Express.User | false) => void) => {
     try {
-      // One fixed statement: this runs on every signed-in request.
-      const [user] = await UserModel.sequelize!.query<Pick<UserModel, 'id' | 'email' | 'name' | 'role' | 'active'>>(
-        'SELECT id, email, name, role, active FROM users WHERE id = ?',
-        { replacements: [id], type: QueryTypes.SELECT },
-      );
+      // Usually read with the session in the same statement (account-read-ahead.ts); else one fixed statement.
+      let user = takeAccount((req as { sessionID?: string }).sessionID, id);
+      if (user === undefined) {
+        [user] = await UserModel.sequelize!.query<AccountRow>('SELECT id, email, name, role, active FROM users WHERE id = ?', { replacements: [id], type: QueryTypes.SELECT });
+      }
       done(null, user && user.active ? toSessionUser(user) : false);
     } catch (err) {
       done(err);
