@@ -8,7 +8,7 @@ import { findEditableProject } from '../projects/project-policy';
 import { findRevision } from '../models/model-service';
 import { findVisibleRevision } from '../models/visible-revision';
 import { errors } from '../../http/errors';
-import { listMembers, memberSheet, revisionOverview } from './member-service';
+import { listMembers, memberSheetJson, revisionOverview } from './member-service';
 import { applyForcesCsv } from './forces-service';
 import { memberAudit, overrideMember } from './override-service';
 import { presentMemberRow } from './member-presenter';
@@ -36,7 +36,7 @@ export function memberRoutes(sequelize: Sequelize): Router {
     const { revision } = await visibleRevision(req);
     const globalId = String(req.params.globalId);
     if (!/^[0-9A-Za-z_$]{22}$/.test(globalId)) throw errors.notFound('That member');
-    res.json(await memberSheet(revision, globalId));
+    res.type('json').send(await memberSheetJson(revision, globalId));
   });
 
   router.get('/members/:globalId/audit', async (req, res) => {

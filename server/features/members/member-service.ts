@@ -2,7 +2,6 @@ import { fn, col, QueryTypes, type WhereOptions } from 'sequelize';
 import type { z } from 'zod';
 import type { memberQuerySchema, MemberPage } from '@shared/api/members';
 import type { MemberSheet, RevisionOverview } from '@shared/api/member-sheet';
-import type { MemberDetail } from '@shared/api/member-detail';
 import { RESULT_BANDS, type ResultBand } from '@shared/api/results';
 import { CAUTIONS } from '@shared/api/cautions';
 import { MemberModel } from '../../db/models/member';
@@ -25,25 +24,26 @@ export async function findMember(revisionId: number, globalId: string): Promise<
   return member;
 }
 
-/** Member columns as attribute names, for the sheet's one-query read below. */
+/** Member columns as attribute names (the detail JSON left out), for the sheet's one-query read below. */
 let memberSelect: string | undefined;
 const MEMBER_SELECT = () =>
   (memberSelect ??= Object.entries(MemberModel.getAttributes() as Record<string, { field?: string }>)
+    .filter(([name]) => name !== 'detail')
     .map(([name, a]) => `m.\`${a.field ?? name}\` AS \`${name}\``)
     .join(', '));
 
-const parseJson = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v);
-
 /**
- * The member sheet in two queries run side by side: the member with its stored result
- * (one join), and its forces. The sheet is the busiest read after the table.
+ * The member sheet as JSON text, in two queries run side by side: the member with its stored
+ * result (one join), and its forces. The stored detail and result (about 6 KB per member) are
+ * JSON we wrote; they are read as text and placed in the answer as they are, not parsed and
+ * written again. The sheet is the busiest read after the table. Shape: MemberSheet.
  */
-export async function memberSheet(revision: Pick<RevisionModel, 'id' | 'number' | 'standard' | 'fileName'>, globalId: string): Promise<MemberSheet> {
+export async function memberSheetJson(revision: Pick<RevisionModel, 'id' | 'number' | 'standard' | 'fileName'>, globalId: string): Promise<string> {
   const sequelize = MemberModel.sequelize!;
   const [rows, forces] = await Promise.all([
-    sequelize.query<Record<string, unknown>>(
-      `SELECT ${MEMBER_SELECT()}, cr.result AS resultJson, cr.engine_version AS engineVersion FROM members m
-       LEFT JOIN check_results cr ON cr.member_id = m.id AND cr.standard = :standard
+    sequelize.query<Record<string, unknown> & { detailText: string; resultText: string | null; engineVersion: string | null }>(
+      `SELECT ${MEMBER_SELECT()}, CAST(m.detail AS CHAR) AS detailText, CAST(cr.result AS CHAR) AS resultText, cr.engine_version AS engineVersion
+       FROM members m LEFT JOIN check_results cr ON cr.member_id = m.id AND cr.standard = :standard
        WHERE m.revision_id = :revisionId AND m.global_id = :globalId LIMIT 1`,
       { replacements: { standard: revision.standard, revisionId: revision.id, globalId }, type: QueryTypes.SELECT },
     ),
@@ -55,16 +55,15 @@ export async function memberSheet(revision: Pick<RevisionModel, 'id' | 'number' 
   ]);
   const row = rows[0];
   if (!row) throw errors.notFound('That member');
-  const member = MemberModel.build({ ...row, isTension: Boolean(row.isTension), detail: parseJson(row.detail) } as never, { raw: true, isNewRecord: false });
-  return {
+  const member = presentMemberRow({ ...row, isTension: Boolean(row.isTension) } as unknown as MemberModel);
+  const rest: Omit<MemberSheet, 'detail' | 'result'> = {
     revision: { id: revision.id, number: revision.number, standard: revision.standard, fileName: revision.fileName },
-    member: presentMemberRow(member),
-    detail: member.detail as MemberDetail,
+    member,
     forces: forces.map((f) => ({ loadCase: f.loadCase, axialN: f.axialN, source: f.source })),
-    result: row.resultJson == null ? null : (parseJson(row.resultJson) as MemberSheet['result']),
-    engineVersion: (row.engineVersion as string | null) ?? null,
+    engineVersion: row.engineVersion ?? null,
     cautions: CAUTIONS,
   };
+  return `${JSON.stringify(rest).slice(0, -1)},"detail":${row.detailText},"result":${row.resultText ?? 'null'}}`;
 }
 
 /** Counts per band, a utilisation histogram and the most critical members of the tension scope. */
