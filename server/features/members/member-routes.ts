@@ -33,10 +33,18 @@ export function memberRoutes(sequelize: Sequelize): Router {
   });
 
   router.get('/members/:globalId', async (req, res) => {
-    const { revision } = await visibleRevision(req);
-    const globalId = String(req.params.globalId);
-    if (!/^[0-9A-Za-z_$]{22}$/.test(globalId)) throw errors.notFound('That member');
-    res.type('json').send(await memberSheetJson(revision, globalId));
+    const user = currentUser(req);
+    const params = req.params as Record<string, string>;
+    const projectId = parseId(params.projectId, 'That project');
+    const revisionId = parseId(params.revisionId, 'That revision');
+    const globalId = String(params.globalId);
+    // The sheet checks access in its own query; when it finds nothing, the usual lookup says what is missing.
+    const json = /^[0-9A-Za-z_$]{22}$/.test(globalId) ? await memberSheetJson(user, projectId, revisionId, globalId) : null;
+    if (json === null) {
+      await findVisibleRevision(user, projectId, revisionId);
+      throw errors.notFound('That member');
+    }
+    res.type('json').send(json);
   });
 
   router.get('/members/:globalId/audit', async (req, res) => {

@@ -4,6 +4,7 @@ import type { memberQuerySchema, MemberPage } from '@shared/api/members';
 import type { MemberSheet, RevisionOverview } from '@shared/api/member-sheet';
 import { RESULT_BANDS, type ResultBand } from '@shared/api/results';
 import { CAUTIONS } from '@shared/api/cautions';
+import type { SessionUser } from '@shared/api/session';
 import { MemberModel } from '../../db/models/member';
 import type { RevisionModel } from '../../db/models/revision';
 import { errors } from '../../http/errors';
@@ -33,37 +34,56 @@ const MEMBER_SELECT = () =>
     .join(', '));
 
 /**
- * The member sheet as JSON text, in two queries run side by side: the member with its stored
- * result (one join), and its forces. The stored detail and result (about 6 KB per member) are
- * JSON we wrote; they are read as text and placed in the answer as they are, not parsed and
- * written again. The sheet is the busiest read after the table. Shape: MemberSheet.
+ * The member sheet as JSON text, or null when the caller cannot see such a member. Two queries
+ * run side by side: the member with its revision, its stored result and the caller's access
+ * (admins, or members of the project) in one join, and its forces. The stored detail and result
+ * (about 6 KB per member) are JSON we wrote; they are read as text and placed in the answer as
+ * they are, not parsed and written again. The sheet is the busiest read after the table.
+ * Shape: MemberSheet.
  */
-export async function memberSheetJson(revision: Pick<RevisionModel, 'id' | 'number' | 'standard' | 'fileName'>, globalId: string): Promise<string> {
+export async function memberSheetJson(user: SessionUser, projectId: number, revisionId: number, globalId: string): Promise<string | null> {
   const sequelize = MemberModel.sequelize!;
+  const replacements = { projectId, revisionId, globalId, userId: user.id, admin: user.role === 'admin' };
   const [rows, forces] = await Promise.all([
-    sequelize.query<Record<string, unknown> & { detailText: string; resultText: string | null; engineVersion: string | null }>(
-      `SELECT ${MEMBER_SELECT()}, CAST(m.detail AS CHAR) AS detailText, CAST(cr.result AS CHAR) AS resultText, cr.engine_version AS engineVersion
-       FROM members m LEFT JOIN check_results cr ON cr.member_id = m.id AND cr.standard = :standard
-       WHERE m.revision_id = :revisionId AND m.global_id = :globalId LIMIT 1`,
-      { replacements: { standard: revision.standard, revisionId: revision.id, globalId }, type: QueryTypes.SELECT },
+    sequelize.query<Record<string, unknown> & SheetExtras>(
+      `SELECT ${MEMBER_SELECT()}, CAST(m.detail AS CHAR) AS detailText, CAST(cr.result AS CHAR) AS resultText, cr.engine_version AS engineVersion,
+              r.number AS revisionNumber, r.standard AS revisionStandard, r.file_name AS revisionFileName
+       FROM members m
+       JOIN revisions r ON r.id = m.revision_id
+       JOIN models md ON md.id = r.model_id
+       LEFT JOIN check_results cr ON cr.member_id = m.id AND cr.standard = r.standard
+       WHERE m.revision_id = :revisionId AND m.global_id = :globalId AND md.project_id = :projectId
+         AND (:admin OR EXISTS (SELECT 1 FROM project_members pm WHERE pm.project_id = md.project_id AND pm.user_id = :userId))
+       LIMIT 1`,
+      { replacements, type: QueryTypes.SELECT },
     ),
+    // Read alongside; only answered when the query above shows the caller may see the member.
     sequelize.query<{ loadCase: string; axialN: number; source: string }>(
       `SELECT f.load_case AS loadCase, f.axial_n AS axialN, f.source FROM member_forces f JOIN members m ON m.id = f.member_id
        WHERE m.revision_id = :revisionId AND m.global_id = :globalId ORDER BY f.source ASC, f.load_case ASC`,
-      { replacements: { revisionId: revision.id, globalId }, type: QueryTypes.SELECT },
+      { replacements, type: QueryTypes.SELECT },
     ),
   ]);
   const row = rows[0];
-  if (!row) throw errors.notFound('That member');
+  if (!row) return null;
   const member = presentMemberRow({ ...row, isTension: Boolean(row.isTension) } as unknown as MemberModel);
   const rest: Omit<MemberSheet, 'detail' | 'result'> = {
-    revision: { id: revision.id, number: revision.number, standard: revision.standard, fileName: revision.fileName },
+    revision: { id: revisionId, number: row.revisionNumber, standard: row.revisionStandard, fileName: row.revisionFileName },
     member,
     forces: forces.map((f) => ({ loadCase: f.loadCase, axialN: f.axialN, source: f.source })),
     engineVersion: row.engineVersion ?? null,
     cautions: CAUTIONS,
   };
   return `${JSON.stringify(rest).slice(0, -1)},"detail":${row.detailText},"result":${row.resultText ?? 'null'}}`;
+}
+
+interface SheetExtras {
+  detailText: string;
+  resultText: string | null;
+  engineVersion: string | null;
+  revisionNumber: number;
+  revisionStandard: string;
+  revisionFileName: string;
 }
 
 /** Counts per band, a utilisation histogram and the most critical members of the tension scope. */
