@@ -8,7 +8,7 @@
 // Targets: fewer than 100 draw calls, first coloured frame under 5 s.
 import { existsSync, mkdtempSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { execFileSync } from 'node:child_process';
-import { createServer } from 'node:net';
+import { freePort } from '../lib/free-port';
 import os from 'node:os';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
@@ -23,17 +23,6 @@ const N = Number(process.argv[2] ?? 20_000);
 /** Writing the model uses web-ifc too; a separate process leaves this one's wasm heap fresh. Kept in the temp folder for the next run. */
 const IFC_CACHE = path.join(os.tmpdir(), `gaugeline-synthetic-${N}.ifc`);
 const PASSWORD = 'gaugeline-demo';
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as { port: number };
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 const mb = (bytes: number) => `${(bytes / 1024 / 1024).toFixed(1)} MB`;
 const secs = (ms: number) => `${(ms / 1000).toFixed(1)} s`;

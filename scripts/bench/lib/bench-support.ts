@@ -5,7 +5,7 @@
 import { fork, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { freePort } from '../../lib/free-port.ts';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -15,17 +15,6 @@ export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '
 /** Generated models and result files (git-ignored). */
 export const BENCH_DIR = path.join(ROOT, '.data', 'bench');
 export const DEMO_ENGINEER = { email: 'engineer@demo.gaugeline.test', password: 'gaugeline-demo' };
-
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as { port: number };
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 export interface ThrowawayDb {
   env: Record<string, string>;
