@@ -131,7 +131,7 @@ export class ImportRunner {
       if (!kept) this.logger.warn(`import ${job.id}: another process took the job over; this result was dropped`);
       else {
         this.track(this.buildGeometry(job));
-        this.track(this.prepareMemberColumns(job.id));
+        this.track(this.prepareReadCopies(job.id));
       }
     } catch (err) {
       // While shutting down, leave the job claimed: its heartbeat goes stale and a running process takes it over.
@@ -196,12 +196,12 @@ export class ImportRunner {
    * Builds the 3D view's member columns and this process's copy of the member table now,
    * so the first view and the first table page after an import find them ready.
    */
-  private async prepareMemberColumns(revisionId: number): Promise<void> {
+  private async prepareReadCopies(revisionId: number): Promise<void> {
     try {
       const revision = await RevisionModel.findByPk(revisionId, { attributes: ['id', 'resultsVersion'] });
       if (revision) await Promise.all([memberColumnsOf(revision), prepareMemberTable(revision.id, revision.resultsVersion)]);
     } catch (err) {
-      this.logger.warn(`import ${revisionId}: member columns not prepared (${(err as Error).message}); they are built on first use`);
+      this.logger.warn(`import ${revisionId}: member table and columns not prepared (${(err as Error).message}); they are built on first use`);
     }
   }
 

@@ -1,6 +1,6 @@
 import { QueryTypes } from 'sequelize';
 import type { z } from 'zod';
-import type { memberQuerySchema, MemberPage, MemberSortKey } from '@shared/api/members';
+import type { memberQuerySchema, MemberPage, MemberRow, MemberSortKey } from '@shared/api/members';
 import { MemberModel } from '../../db/models/member';
 import { presentMemberRow } from './member-presenter';
 import { sortOrder, textRanksOf, TEXT_RANK_SQL, type SortableRow } from './member-table-order';
@@ -96,6 +96,13 @@ export async function cachedMemberPage(revisionId: number, resultsVersion: numbe
   entry.masks.set(key, mask);
   if (entry.masks.size > MASKS_KEPT) entry.masks.delete(entry.masks.keys().next().value!);
   return pageOf(rows, order, mask, q);
+}
+
+/** Every member row of the revision in GlobalId order, from the same copy (the 3D view's member columns). */
+export async function cachedMemberRows(revisionId: number, resultsVersion: number): Promise<MemberRow[]> {
+  const entry = entryFor(revisionId, resultsVersion);
+  const [{ rows }, order] = await Promise.all([entry.rows, orderFor(entry, 'globalId', 'asc')]);
+  return Array.from(order, (i) => rows[i].row);
 }
 
 /** Loads the copy of a revision's table and its default order ahead of the first request. */
