@@ -69,6 +69,27 @@ async function childBare(file: string): Promise<void> {
 }
 
 /**
+ * The database side of the child modes: a connection from the environment and a new model with
+ * one revision claimed by `owner`, in the given project (or the first one), ready for storeOutcome.
+ */
+async function benchRevision(file: string, owner: string, projectId?: number) {
+  const { loadConfig } = await import('../../server/config/config.ts');
+  const { createDatabase } = await import('../../server/db/database.ts');
+  const { ProjectModel } = await import('../../server/db/models/project.ts');
+  const { IfcModelModel } = await import('../../server/db/models/ifc-model.ts');
+  const { RevisionModel } = await import('../../server/db/models/revision.ts');
+  const sequelize = createDatabase(loadConfig(process.env).db);
+  const project = projectId ? await ProjectModel.findByPk(projectId) : await ProjectModel.findOne({ order: [['id', 'ASC']] });
+  if (!project) throw new Error(`no project ${projectId ?? ''} in the benchmark database`);
+  const model = await IfcModelModel.create({ projectId: project.id, name: `${owner} ${path.basename(file)} ${Date.now()}` });
+  const revision = await RevisionModel.create({
+    modelId: model.id, number: 1, fileName: path.basename(file), fileSize: statSync(file).size, sha256: 'bench', storageKey: 'bench',
+    uploadedById: null, standard: project.standard, status: 'checking', claimedBy: owner,
+  });
+  return { sequelize, project, revision };
+}
+
+/**
  * The import task (runImportTask, the worker's code) in this process's main thread, then the
  * hand-over clone and storeOutcome into the DB from the environment; heap sampled every 50 ms.
  */
@@ -77,20 +98,8 @@ async function childDirect(file: string): Promise<void> {
   const { getIfcApi } = await import('../../server/ifc/ifc-api.ts');
   const { storeOutcome } = await import('../../server/imports/store-outcome.ts');
   const { toStorable } = await import('../../server/imports/storable-member.ts');
-  const { loadConfig } = await import('../../server/config/config.ts');
-  const { createDatabase } = await import('../../server/db/database.ts');
-  const { ProjectModel } = await import('../../server/db/models/project.ts');
-  const { IfcModelModel } = await import('../../server/db/models/ifc-model.ts');
-  const { RevisionModel } = await import('../../server/db/models/revision.ts');
 
-  const sequelize = createDatabase(loadConfig(process.env).db);
-  const project = await ProjectModel.findOne({ order: [['id', 'ASC']] });
-  if (!project) throw new Error('no project in the benchmark database');
-  const model = await IfcModelModel.create({ projectId: project.id, name: `direct ${path.basename(file)} ${Date.now()}` });
-  const revision = await RevisionModel.create({
-    modelId: model.id, number: 1, fileName: path.basename(file), fileSize: statSync(file).size, sha256: 'bench', storageKey: 'bench',
-    uploadedById: null, standard: 'as4100', status: 'checking', claimedBy: 'bench-direct',
-  });
+  const { sequelize, project, revision } = await benchRevision(file, 'bench-direct');
   await getIfcApi(); // wasm init is paid once per worker, not per import
 
   let heapPeak = 0;
@@ -144,19 +153,7 @@ async function childSeed(file: string, projectId: number): Promise<void> {
   const { summarise } = await import('../../server/imports/summarise.ts');
   const { storeOutcome } = await import('../../server/imports/store-outcome.ts');
   const { toStorable } = await import('../../server/imports/storable-member.ts');
-  const { loadConfig } = await import('../../server/config/config.ts');
-  const { createDatabase } = await import('../../server/db/database.ts');
-  const { ProjectModel } = await import('../../server/db/models/project.ts');
-  const { IfcModelModel } = await import('../../server/db/models/ifc-model.ts');
-  const { RevisionModel } = await import('../../server/db/models/revision.ts');
-  const sequelize = createDatabase(loadConfig(process.env).db);
-  const project = await ProjectModel.findByPk(projectId);
-  if (!project) throw new Error(`no project ${projectId}`);
-  const model = await IfcModelModel.create({ projectId, name: `api bench ${path.basename(file)}` });
-  const revision = await RevisionModel.create({
-    modelId: model.id, number: 1, fileName: path.basename(file), fileSize: statSync(file).size, sha256: 'bench', storageKey: 'bench',
-    uploadedById: null, standard: project.standard, status: 'checking', claimedBy: 'bench-seed',
-  });
+  const { sequelize, project, revision } = await benchRevision(file, 'bench-seed', projectId);
   const t0 = performance.now();
   const extracted = await readIfcModel(await readUploadBytes(file, 'ifc', 1e12));
   const members = checkModel(extracted, { standard: project.standard, defaultGrade: project.defaultGrade });
