@@ -5,14 +5,16 @@
  * minimum utilisation, searches and pages; random members), bounded by time and count.
  * Load tool: autocannon. Run: npm run bench:api [-- --members=20000] [-- --seconds=20]
  * [-- --requests=20000] [-- --connections=50] [-- --via=api] (import through the upload API,
- * display geometry included, instead of the quicker in-process read, check and store).
+ * display geometry included, instead of the quicker in-process read, check and store)
+ * [-- --profile=DIR] (V8 CPU profile of the app process, written when it stops).
  */
+import { readFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import autocannon, { type Client } from 'autocannon';
 import {
-  ROOT, firstProjectId, fmtMs, getJson, rssOf, signIn, startAppProcess, startThrowawayDb, table, uploadFile, waitForRevision, writeResults,
+  ROOT, cpuMsOf, firstProjectId, fmtMs, getJson, rssOf, signIn, startAppProcess, startThrowawayDb, table, uploadFile, waitForRevision, writeResults,
   type Session,
 } from './lib/bench-support.ts';
 import { ensureModels, seedRevision } from './import.ts';
@@ -64,6 +66,8 @@ export interface ApiResults {
   errors: number;
   timeouts: number;
   appRssPeak: number;
+  /** CPU time per answered request during the timed run (user + system, all threads), in ms: the steadier number on a shared machine. */
+  cpuMsPerRequest?: { app: number; database: number; loadTool: number };
   loadAverage: { start: number[]; end: number[] };
   samples: Record<string, number>;
 }
@@ -93,7 +97,9 @@ async function main(): Promise<void> {
 
   const db = await startThrowawayDb();
   try {
-    const app = await startAppProcess(db.env, { IMPORT_WORKERS: '1', UPLOAD_LIMIT_MB: '2000', SIGN_IN_LIMIT: '10000' });
+    // --profile=DIR writes a V8 CPU profile of the app process there when it stops.
+    const profileDir = arg('profile');
+    const app = await startAppProcess(db.env, { IMPORT_WORKERS: '1', UPLOAD_LIMIT_MB: '2000', SIGN_IN_LIMIT: '10000' }, profileDir ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(profileDir)}`] : []);
     try {
       const engineer = await signIn(app.url);
       const projectId = await firstProjectId(app.url, engineer);
@@ -170,6 +176,8 @@ async function main(): Promise<void> {
       let rssPeak = rssOf(app.pid);
       const rssTimer = setInterval(() => (rssPeak = Math.max(rssPeak, rssOf(app.pid))), 200);
 
+      const dbPid = Number(readFileSync(path.join(db.maria.dir, 'mysqld.pid'), 'utf8').trim());
+      const cpuBefore = { app: cpuMsOf(app.pid), database: cpuMsOf(dbPid), loadTool: process.cpuUsage() };
       const started = performance.now();
       const instance = autocannon({
         url: app.url,
@@ -200,16 +208,24 @@ async function main(): Promise<void> {
       const result = await instance;
       const durationS = (performance.now() - started) / 1000;
       clearInterval(rssTimer);
+      const answered = Object.values(times).reduce((n, t) => n + t.length, 0);
+      const toolCpu = process.cpuUsage(cpuBefore.loadTool);
+      const cpuMsPerRequest = {
+        app: (cpuMsOf(app.pid) - cpuBefore.app) / answered,
+        database: (cpuMsOf(dbPid) - cpuBefore.database) / answered,
+        loadTool: (toolCpu.user + toolCpu.system) / 1000 / answered,
+      };
 
       const endpoints = Object.keys(times).map((k) => stats(k, times[k], bytes[k], non2xx[k], durationS));
       const overall = stats('all', [...times['member table'], ...times['member sheet']], [...bytes['member table'], ...bytes['member sheet']], non2xx['member table'] + non2xx['member sheet'], durationS);
       const results: ApiResults = {
         date: new Date().toISOString(), members, fileBytes: (await import('node:fs')).statSync(file).size, importMs, connections, seconds, durationS, requestLimit,
         mix: 'each connection repeats: member table, member table, member sheet', via,
-        coldFirstMs, warmUpMs, endpoints, overall, errors: result.errors, timeouts: result.timeouts, appRssPeak: rssPeak, loadAverage: { start: loadStart, end: os.loadavg() }, samples,
+        coldFirstMs, warmUpMs, endpoints, overall, errors: result.errors, timeouts: result.timeouts, appRssPeak: rssPeak, cpuMsPerRequest, loadAverage: { start: loadStart, end: os.loadavg() }, samples,
       };
       console.log(`\n${connections} connections, ${durationS.toFixed(1)} s, ${overall.requests} requests (limit ${requestLimit} or ${seconds} s), errors ${result.errors}, timeouts ${result.timeouts}; table query mix: ${JSON.stringify(samples)}\n`);
       console.log(apiTable(results));
+      console.log(`\nCPU per request: app ${cpuMsPerRequest.app.toFixed(2)} ms, MariaDB ${cpuMsPerRequest.database.toFixed(2)} ms, load tool ${cpuMsPerRequest.loadTool.toFixed(2)} ms`);
       // Let requests still queued in the app finish before it is stopped.
       await new Promise((r) => setTimeout(r, 3000));
       console.log(`\nautocannon's own latency (all requests): p50 ${result.latency.p50} ms, p97.5 ${result.latency.p97_5} ms, p99 ${result.latency.p99} ms; app RSS peak ${(rssPeak / 1048576).toFixed(0)} MB`);

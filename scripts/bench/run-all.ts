@@ -149,6 +149,7 @@ function writeReport(started: Date, loadStart: number[], loadEnd: number[], runs
       `table requests mix sort keys, directions, band filters, minimum utilisation, searches and pages (${Object.entries(api.samples).map(([k, v]) => `${k} ${v}`).join(', ')}); sheets ask for random members.`,
       api.coldFirstMs !== undefined ? `Before the timed run: the first table page after the import took ${fmtMs(api.coldFirstMs)} (the app loads its copy of the table), and one request per sort key and direction ${fmtMs(api.warmUpMs ?? NaN)} in all.` : '',
       `Errors ${api.errors}, timeouts ${api.timeouts}; app RSS peak ${(api.appRssPeak / 1048576).toFixed(0)} MB; ${load(api.loadAverage)}. Target: p95 under 100 ms.`,
+      api.cpuMsPerRequest ? `CPU per answered request during the run (user + system, all threads): app ${api.cpuMsPerRequest.app.toFixed(2)} ms, MariaDB ${api.cpuMsPerRequest.database.toFixed(2)} ms, load tool ${api.cpuMsPerRequest.loadTool.toFixed(2)} ms — all three share the machine's cores.` : '',
       '',
       fence(apiTable(api)),
       '',

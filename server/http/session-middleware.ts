@@ -1,8 +1,9 @@
 import session from 'express-session';
 import connectSessionSequelize from 'connect-session-sequelize';
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type { AppConfig } from '../config/config';
 import { leaveAccount, type AccountRow } from '../auth/account-read-ahead';
+import { plainRead } from '../db/plain-read';
 
 const SequelizeStore = connectSessionSequelize(session.Store);
 
@@ -55,20 +56,20 @@ function throttleTouch(store: session.Store): void {
 
 /**
  * Every API request reads its session, and a signed-in one its account too. The store's own
- * read goes through a model (about half a millisecond of CPU here); one fixed statement reads
+ * read goes through a model (about half a millisecond of CPU here); one fixed statement (db/plain-read.ts) reads
  * both, and leaves the account for passport's deserializer (auth/account-read-ahead.ts).
  * Same meaning: the stored JSON by id; express-session itself refuses an expired cookie.
  */
 function readWithPlainQuery(store: session.Store, sequelize: Sequelize): void {
   store.get = (sid, done) => {
-    sequelize
-      .query<{ data: string } & Partial<AccountRow>>(
-        `SELECT s.data, u.id, u.email, u.name, u.role, u.active FROM sessions s
-         LEFT JOIN users u ON u.id = CAST(JSON_VALUE(s.data, '$.passport.user') AS UNSIGNED)
-         WHERE s.sid = ?`,
-        { replacements: [sid], type: QueryTypes.SELECT },
-      )
-      .then((rows) => {
+    plainRead<[({ data: string } & Partial<AccountRow>)[]]>(sequelize, [
+      {
+        sql: `SELECT s.data, u.id, u.email, u.name, u.role, u.active FROM sessions s
+              LEFT JOIN users u ON u.id = CAST(JSON_VALUE(s.data, '$.passport.user') AS UNSIGNED)
+              WHERE s.sid = ?`,
+        values: [sid],
+      },
+    ]).then(([rows]) => {
         const row = rows[0];
         if (!row) return done(null, null);
         const data = JSON.parse(row.data) as session.SessionData & { passport?: { user?: number } };

@@ -8,7 +8,7 @@ import { findEditableProject } from '../projects/project-policy';
 import { findRevision } from '../models/model-service';
 import { findVisibleRevision } from '../models/visible-revision';
 import { errors } from '../../http/errors';
-import { listMembers, memberSheetJson, revisionOverview } from './member-service';
+import { listMembersJson, memberSheetJson, revisionOverview } from './member-service';
 import { applyForcesCsv } from './forces-service';
 import { memberAudit, overrideMember } from './override-service';
 import { presentMemberRow } from './member-presenter';
@@ -24,7 +24,7 @@ export function memberRoutes(sequelize: Sequelize): Router {
 
   router.get('/members', async (req, res) => {
     const { revision } = await visibleRevision(req);
-    res.json(await listMembers(revision, parseBody(memberQuerySchema, req.query)));
+    res.type('json').send(await listMembersJson(revision, parseBody(memberQuerySchema, req.query)));
   });
 
   router.get('/overview', async (req, res) => {

@@ -1,6 +1,6 @@
-import { fn, col, QueryTypes, type WhereOptions } from 'sequelize';
+import { fn, col, type WhereOptions } from 'sequelize';
 import type { z } from 'zod';
-import type { memberQuerySchema, MemberPage } from '@shared/api/members';
+import type { memberQuerySchema } from '@shared/api/members';
 import type { MemberSheet, RevisionOverview } from '@shared/api/member-sheet';
 import { RESULT_BANDS, type ResultBand } from '@shared/api/results';
 import { CAUTIONS } from '@shared/api/cautions';
@@ -9,14 +9,16 @@ import { MemberModel } from '../../db/models/member';
 import type { RevisionModel } from '../../db/models/revision';
 import { errors } from '../../http/errors';
 import { memberWhere } from './member-query';
-import { cachedMemberPage } from './member-table-cache';
+import { cachedMemberPageJson } from './member-table-cache';
+import { plainRead } from '../../db/plain-read';
 import { presentMemberRow } from './member-presenter';
 
 const ROW_ATTRIBUTES = { exclude: ['detail'] };
 
 /** One page of the member table, served from the revision's in-memory copy (member-table-cache.ts). */
-export async function listMembers(revision: Pick<RevisionModel, 'id' | 'resultsVersion'>, q: z.output<typeof memberQuerySchema>): Promise<MemberPage> {
-  return cachedMemberPage(revision.id, revision.resultsVersion, q);
+/** One page of the member table as JSON text (MemberPage): the table route sends it as it is. */
+export async function listMembersJson(revision: Pick<RevisionModel, 'id' | 'resultsVersion'>, q: z.output<typeof memberQuerySchema>): Promise<string> {
+  return cachedMemberPageJson(revision.id, revision.resultsVersion, q);
 }
 
 export async function findMember(revisionId: number, globalId: string): Promise<MemberModel> {
@@ -35,34 +37,32 @@ const MEMBER_SELECT = () =>
 
 /**
  * The member sheet as JSON text, or null when the caller cannot see such a member. Two queries
- * run side by side: the member with its revision, its stored result and the caller's access
+ * run side by side on one connection (db/plain-read.ts): the member with its revision, its stored result and the caller's access
  * (admins, or members of the project) in one join, and its forces. The stored detail and result
  * (about 6 KB per member) are JSON we wrote; they are read as text and placed in the answer as
  * they are, not parsed and written again. The sheet is the busiest read after the table.
  * Shape: MemberSheet.
  */
 export async function memberSheetJson(user: SessionUser, projectId: number, revisionId: number, globalId: string): Promise<string | null> {
-  const sequelize = MemberModel.sequelize!;
-  const replacements = { projectId, revisionId, globalId, userId: user.id, admin: user.role === 'admin' };
-  const [rows, forces] = await Promise.all([
-    sequelize.query<Record<string, unknown> & SheetExtras>(
-      `SELECT ${MEMBER_SELECT()}, CAST(m.detail AS CHAR) AS detailText, CAST(cr.result AS CHAR) AS resultText, cr.engine_version AS engineVersion,
-              r.number AS revisionNumber, r.standard AS revisionStandard, r.file_name AS revisionFileName
-       FROM members m
-       JOIN revisions r ON r.id = m.revision_id
-       JOIN models md ON md.id = r.model_id
-       LEFT JOIN check_results cr ON cr.member_id = m.id AND cr.standard = r.standard
-       WHERE m.revision_id = :revisionId AND m.global_id = :globalId AND md.project_id = :projectId
-         AND (:admin OR EXISTS (SELECT 1 FROM project_members pm WHERE pm.project_id = md.project_id AND pm.user_id = :userId))
-       LIMIT 1`,
-      { replacements, type: QueryTypes.SELECT },
-    ),
+  const [rows, forces] = await plainRead<[(Record<string, unknown> & SheetExtras)[], { loadCase: string; axialN: number; source: string }[]]>(MemberModel.sequelize!, [
+    {
+      sql: `SELECT ${MEMBER_SELECT()}, CAST(m.detail AS CHAR) AS detailText, CAST(cr.result AS CHAR) AS resultText, cr.engine_version AS engineVersion,
+                   r.number AS revisionNumber, r.standard AS revisionStandard, r.file_name AS revisionFileName
+            FROM members m
+            JOIN revisions r ON r.id = m.revision_id
+            JOIN models md ON md.id = r.model_id
+            LEFT JOIN check_results cr ON cr.member_id = m.id AND cr.standard = r.standard
+            WHERE m.revision_id = ? AND m.global_id = ? AND md.project_id = ?
+              AND (? OR EXISTS (SELECT 1 FROM project_members pm WHERE pm.project_id = md.project_id AND pm.user_id = ?))
+            LIMIT 1`,
+      values: [revisionId, globalId, projectId, user.role === 'admin', user.id],
+    },
     // Read alongside; only answered when the query above shows the caller may see the member.
-    sequelize.query<{ loadCase: string; axialN: number; source: string }>(
-      `SELECT f.load_case AS loadCase, f.axial_n AS axialN, f.source FROM member_forces f JOIN members m ON m.id = f.member_id
-       WHERE m.revision_id = :revisionId AND m.global_id = :globalId ORDER BY f.source ASC, f.load_case ASC`,
-      { replacements, type: QueryTypes.SELECT },
-    ),
+    {
+      sql: `SELECT f.load_case AS loadCase, f.axial_n AS axialN, f.source FROM member_forces f JOIN members m ON m.id = f.member_id
+            WHERE m.revision_id = ? AND m.global_id = ? ORDER BY f.source ASC, f.load_case ASC`,
+      values: [revisionId, globalId],
+    },
   ]);
   const row = rows[0];
   if (!row) return null;

@@ -1,10 +1,10 @@
 import { QueryTypes } from 'sequelize';
 import type { z } from 'zod';
-import type { memberQuerySchema, MemberPage, MemberRow, MemberSortKey } from '@shared/api/members';
+import type { memberQuerySchema, MemberRow, MemberSortKey } from '@shared/api/members';
 import { MemberModel } from '../../db/models/member';
 import { presentMemberRow } from './member-presenter';
 import { sortOrder, textRanksOf, TEXT_RANK_SQL, type SortableRow } from './member-table-order';
-import { filterKey, filterMask, pageOf, toTableRow, type FilterMask, type TableRow } from './member-table-rows';
+import { filterKey, filterMask, pageJsonOf, toTableRow, type FilterMask, type TableRow } from './member-table-rows';
 
 type Query = z.output<typeof memberQuerySchema>;
 
@@ -85,8 +85,7 @@ function orderFor(entry: Entry, sort: MemberSortKey, dir: 'asc' | 'desc'): Promi
   return order;
 }
 
-/** One page of a revision's member table (filtered, sorted), with the total of matches. */
-export async function cachedMemberPage(revisionId: number, resultsVersion: number, q: Query): Promise<MemberPage> {
+async function pageParts(revisionId: number, resultsVersion: number, q: Query) {
   const entry = entryFor(revisionId, resultsVersion);
   const [{ rows }, order] = await Promise.all([entry.rows, orderFor(entry, q.sort, q.dir)]);
   const key = filterKey(q);
@@ -95,7 +94,13 @@ export async function cachedMemberPage(revisionId: number, resultsVersion: numbe
   else mask = filterMask(rows, q);
   entry.masks.set(key, mask);
   if (entry.masks.size > MASKS_KEPT) entry.masks.delete(entry.masks.keys().next().value!);
-  return pageOf(rows, order, mask, q);
+  return { rows, order, mask };
+}
+
+/** One page of a revision's member table (filtered, sorted) with the total of matches, as JSON text (MemberPage) from rows serialised once per copy. */
+export async function cachedMemberPageJson(revisionId: number, resultsVersion: number, q: Query): Promise<string> {
+  const { rows, order, mask } = await pageParts(revisionId, resultsVersion, q);
+  return pageJsonOf(rows, order, mask, q);
 }
 
 /** Every member row of the revision in GlobalId order, from the same copy (the 3D view's member columns). */

@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import type { memberQuerySchema, MemberPage, MemberRow } from '@shared/api/members';
+import type { memberQuerySchema, MemberRow } from '@shared/api/members';
 
 type Query = z.output<typeof memberQuerySchema>;
 
@@ -18,6 +18,8 @@ export interface TableRow {
   storey: string;
   assembly: string;
   profile: string;
+  /** The row as JSON, written the first time a page shows it (rows never change inside a copy). */
+  json?: string;
 }
 
 export const fold = (s: string | null | undefined): string =>
@@ -96,15 +98,25 @@ export function filterMask(rows: readonly TableRow[], q: Query): FilterMask {
   return { keep, count };
 }
 
-/** One page of the kept rows in the given order (positions into rows); walks only as far as the page. */
-export function pageOf(rows: readonly TableRow[], order: Int32Array, mask: FilterMask, q: Query): MemberPage {
+/** Positions (into rows) of one page of the kept rows in the given order; walks only as far as the page. */
+function pagePositions(order: Int32Array, mask: FilterMask, q: Query): number[] {
   const from = (q.page - 1) * q.pageSize;
   const to = Math.min(from + q.pageSize, mask.count);
-  const members: MemberRow[] = [];
+  const positions: number[] = [];
   for (let i = 0, seen = 0; i < order.length && seen < to; i++) {
     if (!mask.keep[order[i]]) continue;
-    if (seen >= from) members.push(rows[order[i]].row);
+    if (seen >= from) positions.push(order[i]);
     seen++;
   }
-  return { total: mask.count, page: q.page, pageSize: q.pageSize, members };
+  return positions;
+}
+
+/**
+ * One page of the kept rows in the given order, as JSON text (MemberPage). Each row is written once per copy and reused by
+ * every page that shows it: serialising 50-row pages was the largest single CPU cost of a
+ * table request under load.
+ */
+export function pageJsonOf(rows: readonly TableRow[], order: Int32Array, mask: FilterMask, q: Query): string {
+  const members = pagePositions(order, mask, q).map((i) => (rows[i].json ??= JSON.stringify(rows[i].row)));
+  return `{"total":${mask.count},"page":${q.page},"pageSize":${q.pageSize},"members":[${members.join(',')}]}`;
 }

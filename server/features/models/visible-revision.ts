@@ -1,6 +1,6 @@
-import { QueryTypes } from 'sequelize';
 import type { SessionUser } from '@shared/api/session';
 import { RevisionModel } from '../../db/models/revision';
+import { plainRead } from '../../db/plain-read';
 import { findVisibleProject } from '../projects/project-policy';
 import { findRevision } from './model-service';
 
@@ -14,13 +14,15 @@ export type RevisionRef = Pick<RevisionModel, 'id' | 'modelId' | 'number' | 'sta
  */
 export async function findVisibleRevision(user: SessionUser, projectId: number, revisionId: number): Promise<RevisionRef> {
   // One fixed statement (the revision, if its project is visible to the caller): this runs on every table page and sheet.
-  const [revision] = await RevisionModel.sequelize!.query<RevisionRef>(
-    `SELECT r.id, r.model_id AS modelId, r.number, r.standard, r.file_name AS fileName, r.status, r.results_version AS resultsVersion
-     FROM revisions r JOIN models m ON m.id = r.model_id
-     WHERE r.id = :revisionId AND m.project_id = :projectId
-       AND (:admin OR EXISTS (SELECT 1 FROM project_members pm WHERE pm.project_id = m.project_id AND pm.user_id = :userId))`,
-    { replacements: { revisionId, projectId, userId: user.id, admin: user.role === 'admin' }, type: QueryTypes.SELECT },
-  );
+  const [[revision]] = await plainRead<[RevisionRef[]]>(RevisionModel.sequelize!, [
+    {
+      sql: `SELECT r.id, r.model_id AS modelId, r.number, r.standard, r.file_name AS fileName, r.status, r.results_version AS resultsVersion
+            FROM revisions r JOIN models m ON m.id = r.model_id
+            WHERE r.id = ? AND m.project_id = ?
+              AND (? OR EXISTS (SELECT 1 FROM project_members pm WHERE pm.project_id = m.project_id AND pm.user_id = ?))`,
+      values: [revisionId, projectId, user.role === 'admin', user.id],
+    },
+  ]);
   if (revision) return revision;
   const project = await findVisibleProject(user, projectId);
   return findRevision(project.id, revisionId);
