@@ -19,7 +19,7 @@ import {
 } from './lib/bench-support.ts';
 import { ensureModels, seedRevision } from './import.ts';
 
-const arg = (name: string) => process.argv.find((a) => a.startsWith(`--${name}=`))?.split('=')[1];
+const arg = (name: string) => process.argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3);
 
 const SORT_KEYS = ['utilisation', 'globalId', 'tag', 'name', 'ifcClass', 'profile', 'grade', 'designForceN', 'designCapacityN', 'governing', 'warningCount'];
 const BANDS = ['spare', 'working', 'tight', 'over', 'unknown'];
@@ -99,7 +99,9 @@ async function main(): Promise<void> {
   try {
     // --profile=DIR writes a V8 CPU profile of the app process there when it stops.
     const profileDir = arg('profile');
-    const app = await startAppProcess(db.env, { IMPORT_WORKERS: '1', UPLOAD_LIMIT_MB: '2000', SIGN_IN_LIMIT: '10000' }, profileDir ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(profileDir)}`] : []);
+    // --app-node-args="--a --b" adds Node options to the app process (tuning experiments).
+    const nodeArgs = [...(arg('app-node-args')?.split(' ').filter(Boolean) ?? []), ...(profileDir ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(profileDir)}`] : [])];
+    const app = await startAppProcess(db.env, { IMPORT_WORKERS: '1', UPLOAD_LIMIT_MB: '2000', SIGN_IN_LIMIT: '10000' }, nodeArgs);
     try {
       const engineer = await signIn(app.url);
       const projectId = await firstProjectId(app.url, engineer);
