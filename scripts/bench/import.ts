@@ -2,7 +2,8 @@
  * Import speed and memory against web-ifc's bare floor, for synthetic models of 1,000, 5,000
  * and 20,000 members (the 20,000-member file is over 100 MB; --big adds 50,000 members,
  * about 380 MB). Run: npm run bench:import [-- --big] [-- --sizes=1000,5000] [-- --repeat=N]
- * [-- --profile] (CPU profiles of the in-process runs into .data/bench/profiles/).
+ * [-- --profile] (CPU profiles of the in-process runs into .data/bench/profiles/)
+ * [-- --app-profile=DIR] (CPU profiles of the app process in the whole imports) [-- --quick] (whole imports only: no wait for the 3D geometry, no in-process runs; results not written).
  *
  * Every measurement runs in a fresh child process, so the numbers do not include this
  * script's own memory. Generated models are cached in .data/bench/ keyed by the generator's
@@ -21,7 +22,7 @@ import {
 } from './lib/bench-support.ts';
 
 const SELF = fileURLToPath(import.meta.url);
-const arg = (name: string) => process.argv.find((a) => a.startsWith(`--${name}=`))?.split('=')[1];
+const arg = (name: string) => process.argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3);
 const flag = (name: string) => process.argv.includes(`--${name}`);
 
 export const BARE_DEFINITION =
@@ -97,7 +98,7 @@ async function childDirect(file: string): Promise<void> {
   const { runImportTask } = await import('../../server/imports/run-import-task.ts');
   const { getIfcApi } = await import('../../server/ifc/ifc-api.ts');
   const { storeOutcome } = await import('../../server/imports/store-outcome.ts');
-  const { toStorable } = await import('../../server/imports/storable-member.ts');
+  const { toStorable } = await import('../../server/imports/member-slices.ts');
 
   const { sequelize, project, revision } = await benchRevision(file, 'bench-direct');
   await getIfcApi(); // wasm init is paid once per worker, not per import
@@ -119,8 +120,8 @@ async function childDirect(file: string): Promise<void> {
   take();
   if (!outcome.ok) throw new Error(`import failed: ${outcome.failure.message}`);
   let t = performance.now();
-  // The worker serialises each member's detail and result (storable-member.ts), then hands the
-  // outcome over as a structured clone; v8.serialize is the same format. Both are counted here.
+  // The worker serialises each member's detail and result (member-slices.ts) and hands them over
+  // in slices as structured clones; v8.serialize is the same format. Both are counted here, in one piece.
   const storable = outcome.members.map(toStorable);
   const cloneBytes = serialize({ ...outcome, members: storable }).length;
   const cloneMs = performance.now() - t;
@@ -150,14 +151,14 @@ async function childSeed(file: string, projectId: number): Promise<void> {
   const { readUploadBytes } = await import('../../server/imports/read-upload-bytes.ts');
   const { readIfcModel } = await import('../../server/ifc/read-model.ts');
   const { checkModel } = await import('../../server/imports/check-members.ts');
-  const { summarise } = await import('../../server/imports/summarise.ts');
+  const { addToTally, emptyTally, summarise } = await import('../../server/imports/summarise.ts');
   const { storeOutcome } = await import('../../server/imports/store-outcome.ts');
-  const { toStorable } = await import('../../server/imports/storable-member.ts');
+  const { toStorable } = await import('../../server/imports/member-slices.ts');
   const { sequelize, project, revision } = await benchRevision(file, 'bench-seed', projectId);
   const t0 = performance.now();
   const extracted = await readIfcModel(await readUploadBytes(file, 'ifc', 1e12));
   const members = checkModel(extracted, { standard: project.standard, defaultGrade: project.defaultGrade });
-  const kept = await storeOutcome(sequelize, revision.id, 'bench-seed', project.standard, summarise(extracted, members, {}), members.map(toStorable));
+  const kept = await storeOutcome(sequelize, revision.id, 'bench-seed', project.standard, summarise(extracted, addToTally(emptyTally(), members), {}), members.map(toStorable));
   if (!kept) throw new Error('storeOutcome did not keep the result');
   await sequelize.close();
   report({ revisionId: revision.id, ms: performance.now() - t0 });
@@ -254,9 +255,12 @@ async function main(): Promise<void> {
 
   // 3. Whole imports through the real app.
   const db = await startThrowawayDb();
+  const dbPid = Number(readFileSync(path.join(db.maria.dir, 'mysqld.pid'), 'utf8').trim());
   const rows: ImportRow[] = [];
   try {
-    const app = await startAppProcess(db.env, { IMPORT_WORKERS: '1', UPLOAD_LIMIT_MB: '2000' });
+    // --app-profile=DIR: V8 CPU profiles of the app process and its threads, written when it stops.
+    const appProfile = arg('app-profile');
+    const app = await startAppProcess(db.env, { IMPORT_WORKERS: '1', UPLOAD_LIMIT_MB: '2000' }, appProfile ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(appProfile)}`] : []);
     try {
       const session = await signIn(app.url);
       const projectId = await firstProjectId(app.url, session);
@@ -275,18 +279,21 @@ async function main(): Promise<void> {
           const hwmOk = resetPeakRss(app.pid);
           const sampler = sampleRss(app.pid, 50);
           const cpu0 = cpuMsOf(app.pid);
+          const dbCpu0 = cpuMsOf(dbPid);
           const t0 = performance.now();
           const up = await uploadFile(app.url, session, projectId, file, `bench ${n} #${i + 1} ${Date.now()}`);
           const timeline: string[] = [`uploaded ${fmtMs(performance.now() - t0)}`];
           const state = await waitForRevision(app.url, session, projectId, up.revisionId, 50, (st, p) => timeline.push(`${st} ${Math.round(p * 100)}% @${fmtMs(performance.now() - t0)}`));
           const ms = performance.now() - t0;
           const cpu = cpuMsOf(app.pid) - cpu0;
+          const dbCpu = cpuMsOf(dbPid) - dbCpu0;
           const { peak } = sampler.stop();
           if (state.status !== 'done') throw new Error(`import of ${n} members failed: ${state.failure?.error}: ${state.failure?.message}`);
           const tm = state.summary?.timings ?? {};
           runs.push({ ms, cpu, rex: tm.readAndExtractMs ?? NaN, check: tm.checkMs ?? NaN, geometry: tm.geometryMs ?? NaN, peak, hwm: hwmOk ? peakRssOf(app.pid) : NaN, before });
-          console.log(`whole ${n} #${i + 1}: ${fmtMs(ms)}, app CPU ${fmtMs(cpu)} (worker read+extract ${fmtMs(tm.readAndExtractMs ?? NaN)}, check ${fmtMs(tm.checkMs ?? NaN)}${tm.geometryMs !== undefined ? `, display geometry ${fmtMs(tm.geometryMs)}` : ''}), app RSS ${fmtMb(before)} → peak ${fmtMb(peak)} (VmHWM ${fmtMb(runs.at(-1)!.hwm)})`);
+          console.log(`whole ${n} #${i + 1}: ${fmtMs(ms)}, app CPU ${fmtMs(cpu)} (worker read+extract ${fmtMs(tm.readAndExtractMs ?? NaN)}, check ${fmtMs(tm.checkMs ?? NaN)}${tm.geometryMs !== undefined ? `, display geometry ${fmtMs(tm.geometryMs)}` : ''}), MariaDB CPU ${fmtMs(dbCpu)}, app RSS ${fmtMb(before)} → peak ${fmtMb(peak)} (VmHWM ${fmtMb(runs.at(-1)!.hwm)})`);
           if (flag('timeline')) console.log(`  ${timeline.join(' → ')}`);
+          if (flag('quick')) continue;
           // The 3D geometry is built after the results are stored; let it finish so the next import starts on an idle app.
           const geo = await waitForGeometry(app.url, session, projectId, up.revisionId);
           if (geo) {
@@ -312,6 +319,7 @@ async function main(): Promise<void> {
       await app.stop();
     }
 
+    if (flag('quick')) return;
     // 4. In-process runs: phase breakdown, heap, hand-over size (and CPU profiles with --profile).
     const profDir = path.join(BENCH_DIR, 'profiles');
     for (const row of rows) {

@@ -182,9 +182,8 @@ function steelFromAssumptions(result: CheckResult, spec: MemberCheckInputRaw['st
   return { grade: spec.grade ?? 'stated fy/fu', fy: Number(fy.value), fu: Number(fu.value), source: fy.source, fromDefault };
 }
 
-/** Checks every steel candidate of a model. Members flagged as not steel (nuts, washers, anchors) are left out. */
-export function checkModel(model: ExtractedModel, settings: CheckSettings, onProgress?: (fraction: number) => void): MemberRecord[] {
-  const boltGrades = new Map(model.boltGroups.filter((b) => b.grade).map((b) => [b.globalId, b.grade!]));
+/** The members to check: steel candidates, each GlobalId once. Members flagged as not steel (nuts, washers, anchors) are left out. */
+function steelCandidates(model: ExtractedModel): ExtractedMember[] {
   const seen = new Set<string>();
   const duplicates: string[] = [];
   // GlobalIds must be unique, but real exports sometimes repeat one; keep the first and say so.
@@ -197,10 +196,38 @@ export function checkModel(model: ExtractedModel, settings: CheckSettings, onPro
   if (duplicates.length) {
     model.warnings.push({ code: 'member.duplicate-globalid', message: 'Several elements share one GlobalId; only the first of each was kept.', count: duplicates.length, examples: duplicates.slice(0, 3) });
   }
+  return candidates;
+}
+
+const boltGradesOf = (model: ExtractedModel) => new Map(model.boltGroups.filter((b) => b.grade).map((b) => [b.globalId, b.grade!]));
+
+/** Checks every steel candidate of a model. */
+export function checkModel(model: ExtractedModel, settings: CheckSettings, onProgress?: (fraction: number) => void): MemberRecord[] {
+  const boltGrades = boltGradesOf(model);
+  const candidates = steelCandidates(model);
   const records: MemberRecord[] = [];
   candidates.forEach((m, i) => {
     records.push(checkExtractedMember(m, settings, boltGrades));
     if (onProgress && i % 250 === 0) onProgress(i / candidates.length);
   });
   return records;
+}
+
+/**
+ * The same checks as checkModel, handed over in slices of `size` members as they are done;
+ * the next slice waits for `onSlice` to finish, so a slow consumer bounds what is held.
+ * `fraction` is the share of members checked so far.
+ */
+export async function checkModelInSlices(
+  model: ExtractedModel,
+  settings: CheckSettings,
+  size: number,
+  onSlice: (records: MemberRecord[], fraction: number) => Promise<void> | void,
+): Promise<void> {
+  const boltGrades = boltGradesOf(model);
+  const candidates = steelCandidates(model);
+  for (let from = 0; from < candidates.length; from += size) {
+    const slice = candidates.slice(from, from + size).map((m) => checkExtractedMember(m, settings, boltGrades));
+    await onSlice(slice, Math.min(1, (from + size) / candidates.length));
+  }
 }

@@ -15,9 +15,11 @@ import { IfcModelModel } from '../db/models/ifc-model';
 import { ProjectModel } from '../db/models/project';
 import type { StandardId } from '@shared/api/projects';
 import { claimNextJob, failJob, heartbeat, reportProgress } from './job-claims';
-import { storeOutcome } from './store-outcome';
+import { storeStreamed } from './store-outcome';
 import type { ImportTask, ProgressMessage } from './run-import-task';
-import type { StorableImportOutcome } from './storable-member';
+import type { StreamedImportOutcome } from './storable-member';
+import { MemberSliceStream } from './member-slice-stream';
+import type { FailureData } from './import-failure';
 import type { GeometryOutcome, GeometryTask } from './run-geometry-task';
 import type { RevisionSummary } from '@shared/api/models';
 import { geometryGzipKey, geometryKey } from '../features/geometry/geometry-key';
@@ -88,9 +90,11 @@ export class ImportRunner {
   private async runJob(job: RevisionModel): Promise<void> {
     const beat = setInterval(() => void heartbeat(job.id, this.owner).catch(() => undefined), Math.max(1000, this.config.imports.staleMs / 4));
     const channel = new MessageChannel();
+    const slices = new MemberSliceStream(channel.port1);
     let lastReport = 0;
     let lastStatus = '';
     channel.port1.on('message', (m: ProgressMessage) => {
+      if (slices.take(m)) return;
       const now = Date.now();
       if (m.status === lastStatus && now - lastReport < 300) return;
       lastStatus = m.status;
@@ -118,16 +122,29 @@ export class ImportRunner {
         progressPort: channel.port2,
         forceRows,
       };
-      const outcome: StorableImportOutcome = await this.pool.run(task, {
+      // Checked members arrive in slices on the task's port and are stored while the worker
+      // checks the rest (storable-member.ts); the summary is the task's result.
+      const stop = new AbortController();
+      const outcome: Promise<StreamedImportOutcome> = this.pool.run(task, {
         transferList: [channel.port2] as never,
-        signal: AbortSignal.timeout(this.config.imports.timeLimitMs),
+        signal: AbortSignal.any([AbortSignal.timeout(this.config.imports.timeLimitMs), stop.signal]),
       });
-      if (!outcome.ok) {
-        await failJob(job.id, this.owner, outcome.failure.id, outcome.failure.message);
+      outcome.then((o) => !o.ok && slices.fail(new TaskFailed(o.failure)), (err) => slices.fail(err));
+      let kept: boolean;
+      try {
+        kept = await storeStreamed(this.sequelize, job.id, this.owner, job.standard, slices, async () => {
+          const o = await outcome;
+          if (!o.ok) throw new TaskFailed(o.failure);
+          return o.summary;
+        });
+      } catch (err) {
+        // A store that failed stops the worker too; a task that failed has rolled the store back.
+        stop.abort();
+        await outcome.catch(() => undefined);
+        if (!(err instanceof TaskFailed)) throw err;
+        await failJob(job.id, this.owner, err.failure.id, err.failure.message);
         return;
       }
-      await reportProgress(job.id, this.owner, 'checking', 0.99);
-      const kept = await storeOutcome(this.sequelize, job.id, this.owner, job.standard, outcome.summary, outcome.members);
       if (!kept) this.logger.warn(`import ${job.id}: another process took the job over; this result was dropped`);
       else {
         this.track(this.buildGeometry(job));
@@ -257,5 +274,12 @@ export class ImportRunner {
   /** Waits until no job is running here (tests). */
   async idle(): Promise<void> {
     while (this.active.size) await Promise.allSettled([...this.active]);
+  }
+}
+
+/** An import task that ended with a failure a person should read (not a crash). */
+class TaskFailed extends Error {
+  constructor(readonly failure: FailureData) {
+    super(failure.message);
   }
 }

@@ -1,24 +1,45 @@
-import type { MemberRecord } from './check-members';
-import { runImportTask, type ImportOutcome, type ImportTask } from './run-import-task';
+import type { RevisionSummary } from '@shared/api/models';
+import { checkModelInSlices } from './check-members';
+import { SLICE_SIZE, SLICES_IN_FLIGHT, toStorable, type SliceMessage, type SliceTaken } from './member-slices';
+import { guardedImport, readForChecks, type ImportTask } from './run-import-task';
+import type { FailureData } from './import-failure';
+import { addToTally, emptyTally, summarise } from './summarise';
+
+export type StreamedImportOutcome = { ok: true; summary: RevisionSummary } | { ok: false; failure: FailureData };
 
 /**
- * A checked member as the store writes it: the sheet's detail and the engine's result
- * already serialised. Made in the worker thread, so the hand-over to the request thread
- * copies strings instead of cloning and rebuilding 20,000 nested object graphs, and the
- * request thread never serialises them itself.
+ * The import task as the app's worker runs it: members are checked in slices and each slice
+ * goes to the request thread ready to store (SliceMessage on the task's port) while the next
+ * is checked, so storing in MariaDB overlaps checking, and neither thread ever holds every
+ * member's serialised result. The summary comes back as the task's result.
  */
-export type StorableMember = Omit<MemberRecord, 'detail' | 'result'> & { detailJson: string; resultJson: string | null };
-
-export function toStorable({ detail, result, ...rest }: MemberRecord): StorableMember {
-  return { ...rest, detailJson: JSON.stringify(detail), resultJson: result ? JSON.stringify(result) : null };
-}
-
-export type StorableImportOutcome = Exclude<ImportOutcome, { ok: true }> | (Omit<Extract<ImportOutcome, { ok: true }>, 'members'> & { members: StorableMember[] });
-
-/** The import task as the app's worker runs it: checked members come back ready to store. */
-export async function runImportTaskForStore(task: ImportTask): Promise<StorableImportOutcome> {
-  const outcome = await runImportTask(task);
-  if (!outcome.ok) return outcome;
-  const members = outcome.members.map(toStorable);
-  return { ...outcome, members };
+export async function runImportTaskForStore(task: ImportTask): Promise<StreamedImportOutcome> {
+  const port = task.progressPort;
+  if (!port) throw new Error('runImportTaskForStore needs the task port to hand members over');
+  return guardedImport(task, async (post, timings) => {
+    const { model, settings } = await readForChecks(task, post, timings);
+    const t0 = performance.now();
+    const tally = emptyTally();
+    let inFlight = 0;
+    let wake: (() => void) | null = null;
+    port.on('message', (m: SliceTaken) => {
+      if (!m?.taken) return;
+      inFlight--;
+      wake?.();
+    });
+    await checkModelInSlices(model, settings, SLICE_SIZE, async (records, fraction) => {
+      addToTally(tally, records);
+      port.postMessage({ members: records.map(toStorable) } satisfies SliceMessage);
+      inFlight++;
+      post('checking', fraction);
+      while (inFlight >= SLICES_IN_FLIGHT) await new Promise<void>((resolve) => (wake = resolve));
+      wake = null;
+    });
+    port.postMessage({ end: true, count: tally.candidates } satisfies SliceMessage);
+    timings.checkMs = performance.now() - t0;
+    const summary = summarise(model, tally, timings);
+    // The 3D view's geometry is built afterwards (run-geometry-task.ts), so it never holds results back.
+    summary.geometry = 'pending';
+    return { ok: true as const, summary };
+  });
 }

@@ -1,0 +1,52 @@
+import type { MessagePort } from 'node:worker_threads';
+import type { SliceMessage, SliceTaken, StorableMember } from './member-slices';
+
+/**
+ * The request thread's end of a worker's member slices (SliceMessage on the task's port):
+ * an async iterable for the store. Each slice is acknowledged once the store asks for the
+ * next one, which lets the worker check further (it keeps at most a few slices in flight).
+ * `fail` ends the iteration with an error (the task failed or its worker was lost).
+ */
+export class MemberSliceStream implements AsyncIterable<StorableMember[]> {
+  private readonly queue: StorableMember[][] = [];
+  private ended = false;
+  private failure: unknown = null;
+  private wake: (() => void) | null = null;
+
+  constructor(private readonly port: MessagePort) {}
+
+  /** Takes one message of the port; false when it is not about slices (progress, for example). */
+  take(message: unknown): boolean {
+    const m = message as Partial<SliceMessage> | null;
+    if (m && Array.isArray((m as { members?: unknown }).members)) this.queue.push((m as { members: StorableMember[] }).members);
+    else if (m && (m as { end?: unknown }).end === true) this.ended = true;
+    else return false;
+    this.notify();
+    return true;
+  }
+
+  fail(error: unknown): void {
+    this.failure ??= error;
+    this.notify();
+  }
+
+  private notify(): void {
+    const wake = this.wake;
+    this.wake = null;
+    wake?.();
+  }
+
+  async *[Symbol.asyncIterator](): AsyncIterator<StorableMember[]> {
+    for (;;) {
+      if (this.failure) throw this.failure;
+      const slice = this.queue.shift();
+      if (slice) {
+        yield slice;
+        this.port.postMessage({ taken: true } satisfies SliceTaken);
+        continue;
+      }
+      if (this.ended) return;
+      await new Promise<void>((resolve) => (this.wake = resolve));
+    }
+  }
+}
