@@ -114,6 +114,13 @@ async function changeCensus(page: Page) {
     await page.waitForTimeout(250);
     census = await censusOfCanvas(page, CHANGE_COLOURS);
   }
+  // On a loaded machine the first coloured frame can be a partial one: read until two reads agree.
+  for (let tries = 0; tries < 20; tries++) {
+    await page.waitForTimeout(250);
+    const again = await censusOfCanvas(page, CHANGE_COLOURS);
+    if (JSON.stringify(again.counts) === JSON.stringify(census.counts)) break;
+    census = again;
+  }
   return census;
 }
 
