@@ -5,7 +5,8 @@ import type { SliceMessage, SliceTaken, StorableMember } from './member-slices';
  * The request thread's end of a worker's member slices (SliceMessage on the task's port):
  * an async iterable for the store. Each slice is acknowledged once the store asks for the
  * next one, which lets the worker check further (it keeps at most a few slices in flight).
- * `fail` ends the iteration with an error (the task failed or its worker was lost).
+ * `fail` ends the iteration with an error (the task failed or its worker was lost), and so
+ * does the port closing before the worker said it had sent everything.
  */
 export class MemberSliceStream implements AsyncIterable<StorableMember[]> {
   private readonly queue: StorableMember[][] = [];
@@ -13,7 +14,10 @@ export class MemberSliceStream implements AsyncIterable<StorableMember[]> {
   private failure: unknown = null;
   private wake: (() => void) | null = null;
 
-  constructor(private readonly port: MessagePort) {}
+  constructor(private readonly port: MessagePort) {
+    // A port that closes before the end was announced (the worker thread went away) ends the slices with an error.
+    port.once('close', () => this.fail(new Error('the import worker stopped before handing over all checked members')));
+  }
 
   /** Takes one message of the port; false when it is not about slices (progress, for example). */
   take(message: unknown): boolean {
@@ -25,7 +29,9 @@ export class MemberSliceStream implements AsyncIterable<StorableMember[]> {
     return true;
   }
 
+  /** Ends the iteration with `error`, unless every slice has already arrived. */
   fail(error: unknown): void {
+    if (this.ended) return;
     this.failure ??= error;
     this.notify();
   }
