@@ -28,8 +28,8 @@ describe('member slice stream', () => {
     worker.postMessage({ status: 'checking', progress: 0.5 });
     worker.postMessage({ members: slice('a', 'b') });
     worker.postMessage({ members: slice('c') });
-    expect((await slices.next()).value?.map((m) => m.globalId)).toEqual(['a', 'b']);
-    expect((await slices.next()).value?.map((m) => m.globalId)).toEqual(['c']);
+    expect((await slices.next()).value?.map((m: StorableMember) => m.globalId)).toEqual(['a', 'b']);
+    expect((await slices.next()).value?.map((m: StorableMember) => m.globalId)).toEqual(['c']);
     const last = slices.next();
     await new Promise((r) => setTimeout(r, 20));
     expect(acks()).toBe(2);
