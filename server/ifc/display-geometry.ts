@@ -83,14 +83,18 @@ const growU32 = (n = 1 << 16) => new Grow(new Uint32Array(n), (c) => new Uint32A
 
 interface Target {
   expressID: number;
-  globalId: string;
-  ifcClass: string;
   context: boolean;
 }
 
+/**
+ * The elements to draw, steel first, then context, each in file order (stable output for
+ * the same file). Only ids: no line is read here. Reading the targets' lines before the
+ * first StreamMeshes (GetRawLineData or GetLine, for their GlobalIds) made that first call
+ * 40–60 × slower in web-ifc 0.0.78 — 19.6 s instead of 0.4 s for 1,000 elements of the
+ * 5,000-member benchmark model — so names are read after streaming (nameEntries).
+ */
 function targets(api: IfcAPI, modelID: number, withContext: boolean): Target[] {
   const found = new Map<number, Target>();
-  const names = new Map<number, string>();
   const groups: [readonly string[], boolean][] = [[STEEL_CLASSES, false]];
   if (withContext) groups.push([CONTEXT_CLASSES, true]);
   for (const [classes, context] of groups) {
@@ -103,28 +107,39 @@ function targets(api: IfcAPI, modelID: number, withContext: boolean): Target[] {
       } catch {
         ids = [];
       }
-      for (const id of ids) {
-        if (found.has(id)) continue;
-        // The raw line is four times cheaper than GetLine; GlobalId is the first attribute of every IfcRoot.
-        let line: { type: number; arguments: unknown[] } | null = null;
-        try {
-          line = api.GetRawLineData(modelID, id);
-        } catch {
-          continue;
-        }
-        const globalId = line ? str(line.arguments?.[0]) : null;
-        if (!line || !globalId) continue;
-        let ifcClass = names.get(line.type);
-        if (ifcClass === undefined) {
-          ifcClass = api.GetNameFromTypeCode(line.type) || name;
-          names.set(line.type, ifcClass);
-        }
-        found.set(id, { expressID: id, globalId, ifcClass, context });
-      }
+      for (const id of ids) if (!found.has(id)) found.set(id, { expressID: id, context });
     }
   }
-  // Steel first, then context, each in file order: stable output for the same file.
   return [...found.values()].sort((a, b) => Number(a.context) - Number(b.context) || a.expressID - b.expressID);
+}
+
+type DrawnElement = Omit<DisplayGeometryEntry, 'globalId' | 'ifcClass'> & { expressID: number };
+
+/**
+ * GlobalId and class of each drawn element, from its raw line (four times cheaper than
+ * GetLine; GlobalId is the first attribute of every IfcRoot). An element without one is left
+ * out of the entries; its few vertices stay in the buffers, drawn by nothing.
+ */
+function nameEntries(api: IfcAPI, modelID: number, drawn: DrawnElement[]): DisplayGeometryEntry[] {
+  const names = new Map<number, string>();
+  const entries: DisplayGeometryEntry[] = [];
+  for (const { expressID, ...rest } of drawn) {
+    let line: { type: number; arguments: unknown[] } | null = null;
+    try {
+      line = api.GetRawLineData(modelID, expressID);
+    } catch {
+      continue;
+    }
+    const globalId = line ? str(line.arguments?.[0]) : null;
+    if (!line || !globalId) continue;
+    let ifcClass = names.get(line.type);
+    if (ifcClass === undefined) {
+      ifcClass = api.GetNameFromTypeCode(line.type) || 'IfcProduct';
+      names.set(line.type, ifcClass);
+    }
+    entries.push({ globalId, ifcClass, ...rest });
+  }
+  return entries;
 }
 
 /**
@@ -203,11 +218,19 @@ export async function buildDisplayGeometry(bytes: Uint8Array, options: DisplayGe
       voids = [];
     }
     const openingsCut = voids.length <= (options.openingsLimit ?? 1500);
-    if (!openingsCut) for (const id of voids) api.DeleteLine(opened.modelID, id);
+    if (!openingsCut) {
+      for (const id of voids) {
+        // A line deleted before web-ifc has parsed it can still cut the first elements streamed
+        // (seen with web-ifc 0.0.78: the first two members of the benchmark model kept one and
+        // two holes); parsing it first makes the deletion hold.
+        api.GetRawLineData(opened.modelID, id);
+        api.DeleteLine(opened.modelID, id);
+      }
+    }
     const byId = new Map(list.map((t) => [t.expressID, t]));
     const positions = growF32();
     const indices = growU32();
-    const entries: DisplayGeometryEntry[] = [];
+    const drawn: DrawnElement[] = [];
     // Per-element scratch, reused.
     let scratchPos = new Float32Array(1024);
     let scratchIdx = new Uint32Array(1024);
@@ -267,7 +290,7 @@ export async function buildDisplayGeometry(bytes: Uint8Array, options: DisplayGe
           positions.length = vertexStart * 3;
           return;
         }
-        entries.push({ globalId: target.globalId, ifcClass: target.ifcClass, context: target.context, vertexStart, vertexCount: welded.vertexCount, indexStart, indexCount: welded.indexCount });
+        drawn.push({ expressID: target.expressID, context: target.context, vertexStart, vertexCount: welded.vertexCount, indexStart, indexCount: welded.indexCount });
       } catch {
         failed++;
       } finally {
@@ -296,6 +319,8 @@ export async function buildDisplayGeometry(bytes: Uint8Array, options: DisplayGe
         }
       }
     }
+
+    const entries = nameEntries(api, opened.modelID, drawn);
 
     // Recentre on the bounding box.
     const pos = positions.view();

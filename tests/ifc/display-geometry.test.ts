@@ -9,6 +9,7 @@ import { buildDisplayGeometry } from '../../server/ifc/display-geometry.ts';
 import { readIfcModel } from '../../server/ifc/read-model.ts';
 import { parseDisplayGeometry, writeDisplayGeometry, type DisplayGeometry } from '../../shared/geometry/display-geometry-format.ts';
 import { CORPUS_DIR, FILES, corpusPath } from './corpus-helpers.ts';
+import { makeSyntheticModel } from '../../scripts/samples/make-samples.ts';
 
 const root = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
 const SAMPLE = new Uint8Array(readFileSync(resolve(root, 'samples/kestrel-yard-shed.ifc')));
@@ -83,6 +84,15 @@ describe('display geometry of the Kestrel Yard sample', () => {
     expect(g.header.entries.map((e) => e.globalId).sort()).toEqual(parseDisplayGeometry(cut.bytes).header.entries.map((e) => e.globalId).sort());
     expect(uncut.stats.triangles).toBeLessThan(cut.stats.triangles);
   });
+
+  it('leaves every hole out beyond the limit, from the first member streamed on', async () => {
+    // Generated flat braces, four holes each: uncut, every brace is the same plain box. With
+    // fewer members web-ifc had parsed every line before the deletions, and the fault did not show.
+    const uncut = parseDisplayGeometry((await buildDisplayGeometry(await makeSyntheticModel(1000), { openingsLimit: 0 })).bytes);
+    const members = uncut.header.entries.filter((e) => e.ifcClass === 'IfcMember');
+    expect(members).toHaveLength(1000);
+    expect(new Set(members.map((e) => `${e.vertexCount}/${e.indexCount}`))).toEqual(new Set(['8/36']));
+  }, 60_000);
 
   it('stops adding elements when its time budget is spent, and still writes a valid file', async () => {
     const partial = await buildDisplayGeometry(SAMPLE, { timeBudgetMs: 0, chunkSize: 5 });
