@@ -7,6 +7,7 @@ import { startTestApp, type TestApp } from '../support/test-app';
 import { signIn, DEMO, type Caller } from '../support/api-client';
 import { waitFor } from '../support/wait-for';
 import { ROOT } from '../support/export-fixture';
+import { rawBody } from '../support/raw-body';
 
 const SAMPLE = readFileSync(path.join(ROOT, 'samples/kestrel-yard-shed.ifc'));
 const FORCES = readFileSync(path.join(ROOT, 'samples/kestrel-yard-forces.csv'), 'utf8');
@@ -20,16 +21,7 @@ let revisionId: number;
 let base: string;
 
 /** GET with the body kept as bytes, whatever the content type. */
-function download(caller: Caller, url: string) {
-  return caller.agent
-    .get(url)
-    .buffer(true)
-    .parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
-}
+const download = (caller: Caller, url: string) => rawBody(caller.agent.get(url));
 const csvRows = (body: Buffer) => parse(body, { bom: true, columns: true }) as Record<string, string>[];
 
 beforeAll(async () => {

@@ -9,6 +9,7 @@ import { startTestApp, type TestApp } from '../support/test-app';
 import { signIn, DEMO, type Caller } from '../support/api-client';
 import { importSample } from '../support/imports';
 import { waitForMail } from '../support/mail-sink';
+import { rawBody } from '../support/raw-body';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
@@ -38,16 +39,7 @@ let log: string;
 const exported: Record<string, number> = {};
 
 /** GET with the body kept as bytes, whatever the content type. */
-function download(caller: Caller, url: string) {
-  return caller.agent
-    .get(url)
-    .buffer(true)
-    .parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
-}
+const download = (caller: Caller, url: string) => rawBody(caller.agent.get(url));
 
 async function readLog(caller: Caller, query = ''): Promise<{ total: number; page: number; pageSize: number; entries: Entry[] }> {
   const res = await caller.call('get', `${log}${query}`);

@@ -11,7 +11,7 @@ import { fileURLToPath } from 'node:url';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { MAIL_STATUS_LABELS } from '@shared/api';
 import { startTestApp, type TestApp } from '../support/test-app';
-import { launchBrowser } from '../support/browser';
+import { launchBrowser, signInThroughPage } from '../support/browser';
 import { signIn, DEMO, type Caller } from '../support/api-client';
 import { waitFor } from '../support/wait-for';
 import { sinkMessages, tokenFrom, waitForMail } from '../support/mail-sink';
@@ -87,14 +87,6 @@ async function withPage(email: string | null, run: (page: Page) => Promise<void>
   }
 }
 
-async function signInThroughPage(page: Page, email: string, password: string): Promise<void> {
-  await page.goto('/sign-in');
-  const form = page.getByRole('form', { name: 'Sign in' });
-  await form.getByLabel('E-mail address').fill(email);
-  await form.getByLabel('Password', { exact: true }).fill(password);
-  await form.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
-}
 
 describe('forgotten password', () => {
   it('asks for a link from the sign-in page, chooses a new password from the e-mail, and signs in with it', async () => {

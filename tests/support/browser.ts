@@ -39,12 +39,7 @@ export async function inSignedInPage(
   const problems: string[] = [];
   page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
   try {
-    await page.goto('/sign-in');
-    const form = page.getByRole('form', { name: 'Sign in' });
-    await form.getByLabel('E-mail address').fill(email);
-    await form.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-    await form.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
+    await signInThroughPage(page, email, DEMO_PASSWORD);
     await run(page);
     if (problems.length) throw new Error(problems.join('\n'));
   } catch (error) {
@@ -55,4 +50,14 @@ export async function inSignedInPage(
   } finally {
     await context.close();
   }
+}
+
+/** Signs in through the sign-in page and waits for the project list. */
+export async function signInThroughPage(page: Page, email: string, password: string): Promise<void> {
+  await page.goto('/sign-in');
+  const form = page.getByRole('form', { name: 'Sign in' });
+  await form.getByLabel('E-mail address').fill(email);
+  await form.getByLabel('Password', { exact: true }).fill(password);
+  await form.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
 }
