@@ -17,7 +17,7 @@ import type { StandardId } from '@shared/api/projects';
 import { claimNextJob, failJob, heartbeat, reportProgress } from './job-claims';
 import { storeStreamed } from './store-outcome';
 import type { ImportTask, ProgressMessage } from './run-import-task';
-import type { StreamedImportOutcome } from './storable-member';
+import type { StreamedImportOutcome } from './streamed-import-task';
 import { MemberSliceStream } from './member-slice-stream';
 import type { FailureData } from './import-failure';
 import type { GeometryOutcome, GeometryTask } from './run-geometry-task';
@@ -127,7 +127,7 @@ export class ImportRunner {
         forceRows,
       };
       // Checked members arrive in slices on the task's port and are stored while the worker
-      // checks the rest (storable-member.ts); the summary is the task's result.
+      // checks the rest (streamed-import-task.ts); the summary is the task's result.
       const stop = new AbortController();
       const outcome: Promise<StreamedImportOutcome> = this.pool.run(task, {
         transferList: [channel.port2] as never,

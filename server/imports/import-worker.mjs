@@ -4,7 +4,7 @@ import { register } from 'tsx/esm/api';
 
 register();
 const importTask = import('./run-import-task.ts');
-const importForStore = import('./storable-member.ts');
+const importForStore = import('./streamed-import-task.ts');
 const geometryTask = import('./run-geometry-task.ts');
 
 export default async function importWorker(task) {

@@ -75,7 +75,7 @@ export async function guardedImport<T extends { ok: true }>(task: ImportTask, st
 
 /**
  * The whole import of one file, as run inside a worker thread: bytes → extraction →
- * checks. Returns plain data (the command line's form; the app streams, see storable-member.ts).
+ * checks. Returns plain data (the command line's form; the app streams, see streamed-import-task.ts).
  */
 export async function runImportTask(task: ImportTask): Promise<ImportOutcome> {
   return guardedImport(task, async (post, timings) => {
