@@ -53,7 +53,8 @@ export async function storeStreamed(
     // Checking the members' key to their revision would hold a shared lock on the revision's
     // row until commit, and the job's progress and heartbeat updates of that row would wait
     // (holding pool connections) for as long as slices keep coming. The revision is the one
-    // this process has claimed, so the check is left out for these inserts, and only them.
+    // this process has claimed, so the check is left out for these inserts, and only them; if
+    // the revision went meanwhile, the claim check at the end fails and nothing is kept.
     await sequelize.query('SET SESSION foreign_key_checks = 0', { transaction });
     let lastId = 0;
     try {
