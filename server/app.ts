@@ -16,6 +16,7 @@ import type { Logger } from './logger';
 import type { FileStore } from './storage/file-store';
 import { modelRoutes } from './features/models/model-routes';
 import { memberRoutes } from './features/members/member-routes';
+import { memberSheetCompanion } from './features/members/member-sheet-read';
 import { outboxRoutes } from './features/mail/outbox-routes';
 import { sendCriticalRoutes } from './features/mail/send-critical-routes';
 import { compareRoutes } from './features/compare/compare-routes';
@@ -68,7 +69,8 @@ export function createApp(config: AppConfig, sequelize: Sequelize, logger: Logge
   app.use('/api/health', healthRoutes(sequelize));
 
   const api = express.Router();
-  const sessions = createSessionMiddleware(sequelize, config);
+  // The member sheet's statements ride along with the session read (http/request-read-ahead.ts).
+  const sessions = createSessionMiddleware(sequelize, config, [memberSheetCompanion]);
   const pp = configurePassport();
   // Forces tables may be large; every other body is small.
   const smallJson = express.json({ limit: '1mb' });

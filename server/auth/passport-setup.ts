@@ -4,7 +4,7 @@ import { QueryTypes } from 'sequelize';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { UserModel } from '../db/models/user';
 import { decoyPasswordHash, verifyPassword } from './passwords';
-import { takeAccount, type AccountRow } from './account-read-ahead';
+import { takeAccount, type AccountRow } from '../http/request-read-ahead';
 import type { SessionUser } from '@shared/api/session';
 
 declare global {
@@ -41,8 +41,8 @@ export function configurePassport(): passport.PassportStatic {
   // Re-read the account on every request so role changes and deactivation take effect at once.
   passport.deserializeUser(async (req: IncomingMessage, id: number, done: (err: unknown, user?: Express.User | false) => void) => {
     try {
-      // Usually read with the session in the same statement (account-read-ahead.ts); else one fixed statement.
-      let user = takeAccount((req as { sessionID?: string }).sessionID, id);
+      // Usually read with the session in the same statement (http/request-read-ahead.ts); else one fixed statement.
+      let user = takeAccount(req, id);
       if (user === undefined) {
         [user] = await UserModel.sequelize!.query<AccountRow>('SELECT id, email, name, role, active FROM users WHERE id = ?', { replacements: [id], type: QueryTypes.SELECT });
       }

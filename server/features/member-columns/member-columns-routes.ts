@@ -1,8 +1,7 @@
 import express, { Router } from 'express';
-import { parseId } from '../../http/validate';
-import { currentUser, requireSignedIn } from '../../http/require-user';
+import { requireSignedIn } from '../../http/require-user';
 import { acceptsGzip, ifNoneMatch } from '../../http/conditional';
-import { findVisibleRevision } from '../models/visible-revision';
+import { findRequestedRevision } from '../models/visible-revision';
 import { memberColumnsOf } from './member-columns-service';
 
 /**
@@ -16,7 +15,7 @@ export function memberColumnsRoutes(): Router {
   router.use(requireSignedIn);
 
   router.get('/', async (req: express.Request, res: express.Response) => {
-    const revision = await findVisibleRevision(currentUser(req), parseId(req.params.projectId, 'That project'), parseId(req.params.revisionId, 'That revision'));
+    const revision = await findRequestedRevision(req);
     const body = await memberColumnsOf(revision);
     res.setHeader('ETag', body.etag);
     res.setHeader('Cache-Control', 'private, no-cache');

@@ -6,9 +6,10 @@ import { parseBody, parseId } from '../../http/validate';
 import { currentUser, requireRole, requireSignedIn } from '../../http/require-user';
 import { findEditableProject } from '../projects/project-policy';
 import { findRevision } from '../models/model-service';
-import { findVisibleRevision } from '../models/visible-revision';
+import { findRequestedRevision, findVisibleRevision } from '../models/visible-revision';
 import { errors } from '../../http/errors';
-import { listMembersJson, memberSheetJson, revisionOverview } from './member-service';
+import { listMembersJson, revisionOverview } from './member-service';
+import { GLOBAL_ID, memberSheetJson, memberSheetJsonReadAhead } from './member-sheet-read';
 import { applyForcesCsv } from './forces-service';
 import { memberAudit, overrideMember } from './override-service';
 import { presentMemberRow } from './member-presenter';
@@ -18,9 +19,7 @@ export function memberRoutes(sequelize: Sequelize): Router {
   const router = Router({ mergeParams: true });
   router.use(requireSignedIn);
 
-  const visibleRevision = async (req: express.Request) => ({
-    revision: await findVisibleRevision(currentUser(req), parseId(req.params.projectId, 'That project'), parseId(req.params.revisionId, 'That revision')),
-  });
+  const visibleRevision = async (req: express.Request) => ({ revision: await findRequestedRevision(req) });
 
   router.get('/members', async (req, res) => {
     const { revision } = await visibleRevision(req);
@@ -38,8 +37,11 @@ export function memberRoutes(sequelize: Sequelize): Router {
     const projectId = parseId(params.projectId, 'That project');
     const revisionId = parseId(params.revisionId, 'That revision');
     const globalId = String(params.globalId);
-    // The sheet checks access in its own query; when it finds nothing, the usual lookup says what is missing.
-    const json = /^[0-9A-Za-z_$]{22}$/.test(globalId) ? await memberSheetJson(user, projectId, revisionId, globalId) : null;
+    // Usually read with the session; else the sheet checks access in its own query. When it
+    // finds nothing, the usual lookup says what is missing.
+    const json = GLOBAL_ID.test(globalId)
+      ? (memberSheetJsonReadAhead(req, user, projectId, revisionId, globalId) ?? (await memberSheetJson(user, projectId, revisionId, globalId)))
+      : null;
     if (json === null) {
       await findVisibleRevision(user, projectId, revisionId);
       throw errors.notFound('That member');

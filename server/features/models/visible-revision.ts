@@ -1,4 +1,8 @@
+import type { Request } from 'express';
 import type { SessionUser } from '@shared/api/session';
+import { currentUser } from '../../http/require-user';
+import { takeVisibleRevision } from '../../http/request-read-ahead';
+import { parseId } from '../../http/validate';
 import { RevisionModel } from '../../db/models/revision';
 import { plainRead } from '../../db/plain-read';
 import { findVisibleProject } from '../projects/project-policy';
@@ -26,4 +30,17 @@ export async function findVisibleRevision(user: SessionUser, projectId: number, 
   if (revision) return revision;
   const project = await findVisibleProject(user, projectId);
   return findRevision(project.id, revisionId);
+}
+
+/**
+ * The revision named by the request's :projectId and :revisionId, through a project the
+ * signed-in caller may see. Usually already read with the session (http/request-read-ahead.ts);
+ * otherwise, and for every "not found", the lookup above.
+ */
+export async function findRequestedRevision(req: Request): Promise<RevisionRef> {
+  const user = currentUser(req);
+  const params = req.params as Record<string, string>;
+  const projectId = parseId(params.projectId, 'That project');
+  const revisionId = parseId(params.revisionId, 'That revision');
+  return takeVisibleRevision(req, user.id, projectId, revisionId) ?? findVisibleRevision(user, projectId, revisionId);
 }
