@@ -24,17 +24,20 @@ let recording = false;
 
 /** Records the SQL of every statement sent through the app's pool while `recording`. */
 function recordStatements(): void {
-  type Connection = { query(sql: string | { sql: string }, ...rest: unknown[]): unknown; recorded?: boolean };
+  type Send = (sql: string | { sql: string }, ...rest: unknown[]) => unknown;
+  type Connection = { query: Send; execute: Send; recorded?: boolean };
   const manager = MemberModel.sequelize!.connectionManager as unknown as { getConnection(o: unknown): Promise<Connection> };
   const getConnection = manager.getConnection.bind(manager);
   manager.getConnection = async (options) => {
     const connection = await getConnection(options);
     if (!connection.recorded) {
-      const query = connection.query.bind(connection);
-      connection.query = (sql, ...rest) => {
-        if (recording) sent.push(typeof sql === 'string' ? sql : sql.sql);
-        return query(sql, ...rest);
-      };
+      for (const verb of ['query', 'execute'] as const) {
+        const send = connection[verb].bind(connection);
+        connection[verb] = (sql, ...rest) => {
+          if (recording) sent.push(typeof sql === 'string' ? sql : sql.sql);
+          return send(sql, ...rest);
+        };
+      }
       connection.recorded = true;
     }
     return connection;
