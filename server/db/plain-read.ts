@@ -14,7 +14,7 @@ export type Statement = { sql: string; values: unknown[] };
 
 /**
  * Runs fixed SELECT statements straight on a connection of Sequelize's own pool (same
- * settings, same type casts), side by side on that one connection. For the reads every
+ * settings), side by side on that one connection. For the reads every
  * request makes (session, visible revision, member sheet): `sequelize.query` costs about
  * 0.2 ms of CPU per call on top of the driver here, most of it a stack trace captured for
  * error messages. Values go to `?` placeholders, bound by the driver, never spliced; no
