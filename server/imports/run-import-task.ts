@@ -4,6 +4,7 @@ import type { JobStatus, RevisionSummary } from '@shared/api/models';
 import { readIfcModel } from '../ifc/read-model';
 import { isIfcReadError } from '../ifc/ifc-errors';
 import { readUploadBytes } from './read-upload-bytes';
+import { releaseReaderMemory } from './release-reader-memory';
 import { ImportFailure, type FailureData } from './import-failure';
 import { checkModel, type CheckSettings, type MemberRecord } from './check-members';
 import { addToTally, emptyTally, summarise } from './summarise';
@@ -40,10 +41,8 @@ export type Post = (status: JobStatus, progress: number) => void;
 export async function readForChecks(task: ImportTask, post: Post, timings: Record<string, number>): Promise<{ model: ExtractedModel; settings: CheckSettings }> {
   const t0 = performance.now();
   post('reading', 0);
-  const bytes = await readUploadBytes(task.filePath, task.kind, task.inflateLimitBytes);
-  const model = await readIfcModel(bytes, {
-    progress: (phase, fraction) => post(phase === 'reading' ? 'reading' : 'extracting', fraction),
-  });
+  const { model, fileBytes } = await readAndExtract(task, post);
+  releaseReaderMemory(fileBytes);
   timings.readAndExtractMs = performance.now() - t0;
   post('checking', 0);
   let tableForces: Map<string, { loadCase: string; axialN: number }[]> | undefined;
@@ -54,6 +53,15 @@ export async function readForChecks(task: ImportTask, post: Post, timings: Recor
     tableForces = matched.byGlobalId;
   }
   return { model, settings: { standard: task.standard, defaultGrade: task.defaultGrade, tableForces } };
+}
+
+/** Its own function so that the file's bytes are out of reach once the model is extracted. */
+async function readAndExtract(task: ImportTask, post: Post): Promise<{ model: ExtractedModel; fileBytes: number }> {
+  const bytes = await readUploadBytes(task.filePath, task.kind, task.inflateLimitBytes);
+  const model = await readIfcModel(bytes, {
+    progress: (phase, fraction) => post(phase === 'reading' ? 'reading' : 'extracting', fraction),
+  });
+  return { model, fileBytes: bytes.length };
 }
 
 /**
