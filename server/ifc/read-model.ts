@@ -136,7 +136,7 @@ export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {})
       members: works.map((w) => w.member).sort((a, b) => a.globalId.localeCompare(b.globalId)),
       boltGroups: bolts.map((b) => b.group).sort((a, b) => a.globalId.localeCompare(b.globalId)),
       analysisMembers,
-      profileDefinitions: profileDefinitions(ctx),
+      profileDefinitions: options.listProfiles === false ? [] : profileDefinitions(ctx),
       forceConvention: FORCE_CONVENTION,
       warnings: ctx.warnings.list(),
       counts: countClasses(ctx),

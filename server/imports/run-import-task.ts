@@ -60,6 +60,8 @@ async function readAndExtract(task: ImportTask, post: Post): Promise<{ model: Ex
   const bytes = await readUploadBytes(task.filePath, task.kind, task.inflateLimitBytes);
   const model = await readIfcModel(bytes, {
     progress: (phase, fraction) => post(phase === 'reading' ? 'reading' : 'extracting', fraction),
+    // Checks and the store use the members' own profiles, not the file's list of every profile.
+    listProfiles: false,
   });
   return { model, fileBytes: bytes.length };
 }
