@@ -22,7 +22,22 @@ interface Piece {
   extrusionDir?: Vec3;
 }
 
-function itemBox(ctx: ModelContext, repId: number | undefined): { box: Piece['box']; extrusionDir?: Vec3 } {
+type ItemBox = { box: Piece['box']; extrusionDir?: Vec3 };
+
+// Boxes by representation id, per read: bolts of one kind map one representation, and its box
+// (in its own frame) is the same for every bolt that maps it. Callers only read what they get.
+const boxesOfRead = new WeakMap<ModelContext, Map<number, ItemBox>>();
+
+function itemBox(ctx: ModelContext, repId: number | undefined): ItemBox {
+  if (repId === undefined) return itemBoxOf(ctx, repId);
+  let boxes = boxesOfRead.get(ctx);
+  if (!boxes) boxesOfRead.set(ctx, (boxes = new Map()));
+  let found = boxes.get(repId);
+  if (!found) boxes.set(repId, (found = itemBoxOf(ctx, repId)));
+  return found;
+}
+
+function itemBoxOf(ctx: ModelContext, repId: number | undefined): ItemBox {
   const rep = ctx.line(repId);
   let box: Piece['box'] = null;
   let extrusionDir: Vec3 | undefined;
