@@ -9,7 +9,7 @@
  * 50,000 lines doubled the CPU time of extraction: the kept lines are copied into the old
  * generation). Through GetLine (7 µs a line) a larger table is kept.
  */
-import { FromRawLineData, type IfcAPI, SchemaNames } from 'web-ifc';
+import { FromRawLineData, type IfcAPI, InheritanceDef, SchemaNames } from 'web-ifc';
 import { DEFER, type StepText } from './step-text.ts';
 import { numList, ref, refs } from './step-values.ts';
 import type { IfcSchema, UnitsInfo } from './types.ts';
@@ -35,19 +35,47 @@ export class ModelContext {
   /** web-ifc's line constructors for this model's schema (what GetLine uses); null: GetLine only. */
   private readonly fromRaw: Record<number, (args: unknown[]) => any> | null;
 
+  /** Schema index of web-ifc's tables (constructors, inheritance) when classes are listed from the text. */
+  private readonly listsSchema: number | null = null;
+
   constructor(
     readonly api: IfcAPI,
-    readonly modelID: number,
+    /**
+     * The web-ifc model, or how to open it when first needed: a read whose classes are listed
+     * from the text (`textLists`) may never need it.
+     */
+    private readonly model: number | (() => number),
     readonly schema: IfcSchema,
     /** Cache slots (tests make it tiny); by default CACHE_SIZE_TEXT or CACHE_SIZE_WEB_IFC. */
     cacheSize: number | undefined = undefined,
     /** The file's text, when lines may be read from it instead of through GetLine. */
     private readonly text: StepText | null = null,
+    /** The file's schema as its header names it: list classes from the text's index instead of web-ifc's. */
+    textLists?: { schemaIdentifier: string },
   ) {
-    this.fromRaw = text ? constructorsFor(api, modelID) : null;
+    if (text && textLists) {
+      const index = schemaIndexOf(textLists.schemaIdentifier);
+      if (index > 0 && text.listsExact) this.listsSchema = index;
+    }
+    this.fromRaw = text ? (this.listsSchema !== null ? tableFor(this.listsSchema) : constructorsFor(api, this.modelID)) : null;
     const size = Math.max(1, Math.floor(cacheSize ?? (this.fromRaw ? CACHE_SIZE_TEXT : CACHE_SIZE_WEB_IFC)));
     this.slotIds = new Float64Array(size);
     this.slotLines = new Array(size).fill(null);
+  }
+
+  /** web-ifc's id of the open model (opened now when it was left until needed). */
+  get modelID(): number {
+    return typeof this.model === 'number' ? this.model : this.model();
+  }
+
+  /** Classes are listed from the file's text, not from web-ifc's model. */
+  get listsFromText(): boolean {
+    return this.listsSchema !== null;
+  }
+
+  /** web-ifc's schema index the text's lists and line constructors use (-1 when not listing from the text). */
+  get listsSchemaIndex(): number {
+    return this.listsSchema ?? -1;
   }
 
   /** The raw (not flattened) line; null when the id does not exist or fails to parse. */
@@ -174,6 +202,7 @@ export class ModelContext {
 
   /** How many lines of the class there are, without listing them (each listed id is a wasm call). */
   countOfType(typeCode: number, includeInherited = false): number {
+    if (this.listsSchema !== null) return this.typesOf(typeCode, includeInherited).reduce((n, t) => n + this.text!.idsOfType(t).length, 0);
     try {
       return this.api.GetLineIDsWithType(this.modelID, typeCode, includeInherited).size();
     } catch {
@@ -182,11 +211,18 @@ export class ModelContext {
   }
 
   idsOfType(typeCode: number, includeInherited = false): number[] {
+    if (this.listsSchema !== null) return this.typesOf(typeCode, includeInherited).flatMap((t) => this.text!.idsOfType(t));
     try {
       return [...this.api.GetLineIDsWithType(this.modelID, typeCode, includeInherited)];
     } catch {
       return [];
     }
+  }
+
+  /** The class and, when asked, its subclasses, in the order web-ifc's GetLineIDsWithType takes them. */
+  private typesOf(typeCode: number, includeInherited: boolean): number[] {
+    const sub = includeInherited ? (InheritanceDef as Record<number, Record<number, number[] | undefined>>)[this.listsSchema!]?.[typeCode] : undefined;
+    return sub ? [typeCode, ...sub] : [typeCode];
   }
 
   /** File length → mm. */
@@ -195,12 +231,19 @@ export class ModelContext {
   }
 }
 
+type Constructors = Record<number, (args: unknown[]) => any>;
+const tableFor = (index: number): Constructors | null => (FromRawLineData as Record<number, Constructors | undefined>)[index] ?? null;
+
+/** web-ifc's index of a schema name as a header writes it (its SchemaNames); -1 when unknown. */
+function schemaIndexOf(name: string): number {
+  const upper = name.toUpperCase();
+  return (SchemaNames as string[][]).findIndex((names) => names?.includes(upper));
+}
+
 /** FromRawLineData of the model's schema, found the way GetLine finds it; null when unsure. */
-function constructorsFor(api: IfcAPI, modelID: number): Record<number, (args: unknown[]) => any> | null {
-  const table = FromRawLineData as Record<number, Record<number, (args: unknown[]) => any> | undefined>;
+function constructorsFor(api: IfcAPI, modelID: number): Constructors | null {
   const known = (api as unknown as { modelSchemaList?: number[] }).modelSchemaList?.[modelID];
-  if (typeof known === 'number' && table[known]) return table[known] ?? null;
-  const name = api.GetModelSchema(modelID);
-  const index = (SchemaNames as string[][]).findIndex((names) => names?.includes(name));
-  return index > 0 ? (table[index] ?? null) : null;
+  if (typeof known === 'number' && tableFor(known)) return tableFor(known);
+  const index = schemaIndexOf(api.GetModelSchema(modelID));
+  return index > 0 ? tableFor(index) : null;
 }

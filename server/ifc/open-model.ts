@@ -41,15 +41,26 @@ export function inspectHeader(bytes: Uint8Array): { schemaIdentifier: string; sc
   return { schemaIdentifier: schemaMatch[1], schema, truncated, hasData };
 }
 
-export function openModel(api: IfcAPI, bytes: Uint8Array): OpenedModel {
+/** The header checks every read makes before web-ifc sees the file. */
+export function checkHeader(bytes: Uint8Array): ReturnType<typeof inspectHeader> {
   const h = inspectHeader(bytes);
   if (!h.hasData) throw new IfcReadError(h.truncated ? 'ifc.truncated' : 'ifc.empty', 'the file has a header but no DATA section');
+  return h;
+}
+
+/** web-ifc's failure to open a file whose header passed, as the error every read gives. */
+export function openFailure(h: { truncated: boolean }, message?: string, cause?: unknown): IfcReadError {
+  return new IfcReadError(h.truncated ? 'ifc.truncated' : 'ifc.parse-failed', message, cause === undefined ? undefined : { cause });
+}
+
+export function openModel(api: IfcAPI, bytes: Uint8Array): OpenedModel {
+  const h = checkHeader(bytes);
   let modelID: number;
   try {
     modelID = api.OpenModel(bytes, { COORDINATE_TO_ORIGIN: false });
   } catch (e) {
-    throw new IfcReadError(h.truncated ? 'ifc.truncated' : 'ifc.parse-failed', e instanceof Error ? e.message : String(e), { cause: e });
+    throw openFailure(h, e instanceof Error ? e.message : String(e), e);
   }
-  if (modelID === -1 || modelID === undefined) throw new IfcReadError(h.truncated ? 'ifc.truncated' : 'ifc.parse-failed');
+  if (modelID === -1 || modelID === undefined) throw openFailure(h);
   return { modelID, schema: h.schema, schemaIdentifier: h.schemaIdentifier, truncated: h.truncated };
 }

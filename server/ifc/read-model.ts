@@ -1,65 +1,41 @@
 /**
- * readIfcModel: bytes in, plain SI data out. Opens the model, extracts, and always closes it.
- * No geometry kernel calls: engineering geometry comes from placements and profile parameters.
- * Meant to run inside a worker with a time limit; progress is reported per phase.
+ * readIfcModel: bytes in, plain SI data out. web-ifc validates every file and its line
+ * constructors build every line object; lines come from the file's text where that gives the
+ * same objects (step-text.ts). No geometry kernel calls: engineering geometry comes from
+ * placements and profile parameters. Meant to run inside a worker with a time limit; progress
+ * is reported per phase.
+ *
+ * Two ways to the same model:
+ * - a large file is opened by web-ifc in a thread of its own (open-check.ts) while this thread
+ *   reads the text and extracts, listing classes from the text's index; the model is kept only
+ *   if web-ifc opened the file and counted the same lines. web-ifc's model is opened here as
+ *   well only if some line or placement needs it.
+ * - otherwise (small files, text that cannot list classes exactly, or the two disagree) web-ifc
+ *   opens the model here first, as it always did.
  */
-import * as W from 'web-ifc';
-import { extractAnalysisMembers } from './analysis-model.ts';
-import { associateBolts } from './bolt-association.ts';
-import { type BoltWork, extractBoltGroup, fastenerIds } from './bolts.ts';
-import { DEFAULT_FORCE_PSETS, FORCE_CONVENTION } from './forces.ts';
+import { extractModel } from './extract-model.ts';
 import { getIfcApi } from './ifc-api.ts';
 import { IfcReadError, isIfcReadError } from './ifc-errors.ts';
-import { extractMember, type MemberWork } from './members.ts';
 import { ModelContext } from './model-context.ts';
-import { openModel } from './open-model.ts';
+import { startOpenCheck } from './open-check.ts';
+import { checkHeader, openFailure, openModel } from './open-model.ts';
 import { StepText } from './step-text.ts';
-import { readProfile } from './profiles.ts';
-import { buildRelationsIndex } from './relations-index.ts';
-import { num, str } from './step-values.ts';
-import type { ExtractedModel, MemberForce, ReadOptions, StoreyInfo } from './types.ts';
-import { readUnits } from './units.ts';
+import type { ExtractedModel, ReadOptions } from './types.ts';
 
-const COUNTED_CLASSES = [
-  'IfcBeam', 'IfcBeamStandardCase', 'IfcMember', 'IfcMemberStandardCase', 'IfcColumn', 'IfcColumnStandardCase',
-  'IfcPlate', 'IfcPlateStandardCase', 'IfcElementAssembly', 'IfcMechanicalFastener', 'IfcFastener', 'IfcDiscreteAccessory',
-  'IfcOpeningElement', 'IfcVoidingFeature', 'IfcRelVoidsElement', 'IfcRelConnectsWithRealizingElements', 'IfcBooleanResult',
-  'IfcBooleanClippingResult', 'IfcExtrudedAreaSolid', 'IfcFacetedBrep', 'IfcMappedItem', 'IfcMaterialProfileSetUsage',
-  'IfcStructuralAnalysisModel', 'IfcStructuralCurveMember', 'IfcStructuralSurfaceMember', 'IfcStructuralCurveReaction',
-  'IfcRelAssignsToProduct', 'IfcPropertySet', 'IfcBuildingStorey',
-];
-
-const yieldToLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
-
-function countClasses(ctx: ModelContext): Record<string, number> {
-  const counts: Record<string, number> = {};
-  for (const name of COUNTED_CLASSES) {
-    const code = (W as unknown as Record<string, number>)[name.toUpperCase()];
-    if (typeof code !== 'number') continue;
-    const n = ctx.countOfType(code, false);
-    if (n > 0) counts[name] = n;
-  }
-  return counts;
-}
-
-function storeys(ctx: ModelContext): StoreyInfo[] {
-  return ctx.idsOfType(W.IFCBUILDINGSTOREY).map((id) => {
-    const l = ctx.line(id);
-    const e = num(l?.Elevation);
-    return { globalId: str(l?.GlobalId) ?? `#${id}`, name: str(l?.Name) ?? '', elevation: e === undefined ? null : Math.round(e * ctx.units.lengthToMm * 100) / 100 };
-  });
-}
+/** From this size up web-ifc opens the file in its own thread (below, starting the thread costs more than it saves). */
+export const OPEN_CHECK_FROM_BYTES = 16 * 1024 * 1024;
 
 export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {}): Promise<ExtractedModel> {
-  const progress = options.progress ?? (() => {});
-  const forceSpecs = options.forcePsetNames?.length ? options.forcePsetNames : DEFAULT_FORCE_PSETS;
-  progress('reading', 0);
-  const api = await getIfcApi();
-  const tOpen = performance.now();
-  const opened = openModel(api, bytes);
-  const tExtract = performance.now();
-  let ctxForStats: ModelContext | null = null;
-  // Phases in CPU time of the process: on a shared machine wall time says more about the neighbours.
+  const inThread = options.openInThread ?? bytes.length >= OPEN_CHECK_FROM_BYTES;
+  if (inThread && options.readLinesWith !== 'web-ifc') {
+    const model = await readWhileOpening(bytes, options);
+    if (model) return model;
+  }
+  return readOpened(bytes, options);
+}
+
+/** CPU time per phase of the read (ReadStats.phases): on a shared machine wall time says more about the neighbours. */
+function phaseClock(options: ReadOptions) {
   const phases: Record<string, number> = {};
   const cpuMs = () => {
     const u = process.cpuUsage();
@@ -72,130 +48,115 @@ export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {})
     phases[name] = (phases[name] ?? 0) + t - tPhase;
     tPhase = t;
   };
+  return { phases, mark };
+}
+
+function recordStats(options: ReadOptions, openMs: number, tExtract: number, ctx: ModelContext | null, phases: Record<string, number>): void {
+  if (!options.stats) return;
+  options.stats.openMs = openMs;
+  options.stats.extractMs = performance.now() - tExtract;
+  options.stats.linesRead = ctx?.linesRead ?? 0;
+  options.stats.linesFromWebIfc = ctx?.linesFromWebIfc ?? 0;
+  options.stats.phases = phases;
+}
+
+const asReadError = (e: unknown) => (isIfcReadError(e) ? e : new IfcReadError('ifc.parse-failed', e instanceof Error ? e.message : String(e), { cause: e }));
+
+/**
+ * The large-file way: web-ifc opens the file in another thread while this one extracts from
+ * the text. null when the text cannot stand in for web-ifc's lists or the two disagree (then
+ * the caller reads the usual way). web-ifc's verdict comes first: a file it cannot open fails
+ * here as it fails in readOpened, whatever the extraction made of it.
+ */
+async function readWhileOpening(bytes: Uint8Array, options: ReadOptions): Promise<ExtractedModel | null> {
+  const progress = options.progress ?? (() => {});
+  progress('reading', 0);
+  const header = checkHeader(bytes);
+  const check = startOpenCheck(bytes);
+  const api = await getIfcApi();
+  const tStart = performance.now();
+  const { phases, mark } = phaseClock(options);
+  let openedHere: number | null = null;
+  let ctx: ModelContext | null = null;
+  try {
+    const text = StepText.index(bytes, (name) => api.GetTypeCodeFromName(name));
+    // Opened here too only when a line or placement needs web-ifc itself; a failure is kept, not retried per line.
+    let openError: unknown = null;
+    const openHere = () => {
+      if (openError) throw openError;
+      try {
+        return (openedHere ??= openModel(api, bytes).modelID);
+      } catch (e) {
+        throw (openError = e);
+      }
+    };
+    ctx = new ModelContext(api, openHere, header.schema, options.cacheSize, text, { schemaIdentifier: header.schemaIdentifier });
+    if (!ctx.listsFromText) return null;
+    if (options.stats) {
+      options.stats.textReader = true;
+      options.stats.openInThread = true;
+    }
+    mark('text index');
+    progress('reading', 1);
+    let model: ExtractedModel | null = null;
+    let failure: unknown = null;
+    try {
+      model = await extractModel({ ctx, header, options, mark });
+    } catch (e) {
+      failure = e;
+    }
+    const verdict = await check.answer;
+    if (!verdict.ok) throw openFailure(header, verdict.message);
+    if (verdict.lines !== text.size || verdict.schemaIndex !== ctx.listsSchemaIndex) return null;
+    if (failure) throw asReadError(failure);
+    return model;
+  } finally {
+    check.stop();
+    recordStats(options, 0, tStart, ctx, phases);
+    if (openedHere !== null) closeQuietly(api, openedHere);
+  }
+}
+
+/** web-ifc opens the model first, in this thread; lines then come from the text when both count the same lines. */
+async function readOpened(bytes: Uint8Array, options: ReadOptions): Promise<ExtractedModel> {
+  const progress = options.progress ?? (() => {});
+  progress('reading', 0);
+  const api = await getIfcApi();
+  const tOpen = performance.now();
+  const opened = openModel(api, bytes);
+  const tExtract = performance.now();
+  const { phases, mark } = phaseClock(options);
+  let ctx: ModelContext | null = null;
   try {
     progress('reading', 1);
     // Lines are read from the file's text wherever that gives web-ifc's own line objects
     // (step-text.ts), unless web-ifc counted other lines than the text shows (a damaged file).
     const text = options.readLinesWith === 'web-ifc' ? null : StepText.index(bytes, (name) => api.GetTypeCodeFromName(name));
     const agrees = text !== null && text.size === lineCount(api, opened.modelID);
-    const ctx = new ModelContext(api, opened.modelID, opened.schema, options.cacheSize, agrees ? text : null);
-    ctxForStats = ctx;
+    ctx = new ModelContext(api, opened.modelID, opened.schema, options.cacheSize, agrees ? text : null);
     if (options.stats) options.stats.textReader = agrees;
     mark('text index');
-    const projectId = ctx.idsOfType(W.IFCPROJECT)[0];
-    if (projectId === undefined) throw new IfcReadError(opened.truncated ? 'ifc.truncated' : 'ifc.no-project');
-    ctx.units = readUnits(ctx, projectId);
-    if (opened.truncated) ctx.warnings.add('file.truncated', 'The file ends early; only what survived was read.');
-    const ix = buildRelationsIndex(ctx);
-    mark('relations');
-
-    const memberIds = [...new Set([W.IFCMEMBER, W.IFCBEAM, W.IFCCOLUMN, W.IFCPLATE].flatMap((t) => ctx.idsOfType(t, true)))].sort((a, b) => a - b);
-    const fasteners = fastenerIds(ctx);
-    const total = memberIds.length + fasteners.length + 1;
-    const works: MemberWork[] = [];
-    let done = 0;
-    mark('lists');
-    for (const id of memberIds) {
-      try {
-        const w = extractMember(ctx, ix, id, forceSpecs);
-        if (w) works.push(w);
-      } catch (e) {
-        ctx.warnings.add('member.read-failed', 'A member could not be read and was skipped.', `#${id}: ${e instanceof Error ? e.message : String(e)}`);
-      }
-      if (++done % 200 === 0) {
-        progress('extracting', done / total);
-        await yieldToLoop();
-      }
-    }
-    mark('members');
-    const bolts: BoltWork[] = [];
-    for (const id of fasteners) {
-      const b = extractBoltGroup(ctx, ix, id);
-      if (b) bolts.push(b);
-      // Bolt groups can outnumber members; keep reporting so the progress bar does not stall.
-      if (++done % 200 === 0) {
-        progress('extracting', done / total);
-        await yieldToLoop();
-      }
-    }
-    mark('bolt groups');
-    associateBolts(ctx, ix, works, bolts);
-    mark('bolt association');
-    const analysisMembers = extractAnalysisMembers(ctx, ix);
-    applyAnalysisForces(works, analysisMembers);
-    progress('extracting', 1);
-
-    mark('analysis');
-    const project = ctx.line(projectId);
-    const model: ExtractedModel = {
-      schema: opened.schema,
-      schemaIdentifier: opened.schemaIdentifier,
-      units: ctx.units,
-      project: str(project?.LongName) ?? str(project?.Name),
-      storeys: storeys(ctx),
-      members: works.map((w) => w.member).sort((a, b) => a.globalId.localeCompare(b.globalId)),
-      boltGroups: bolts.map((b) => b.group).sort((a, b) => a.globalId.localeCompare(b.globalId)),
-      analysisMembers,
-      profileDefinitions: options.listProfiles === false ? [] : profileDefinitions(ctx),
-      forceConvention: FORCE_CONVENTION,
-      warnings: ctx.warnings.list(),
-      counts: countClasses(ctx),
-    };
-    mark('profiles, counts, sorting');
-    return model;
+    return await extractModel({ ctx, header: opened, options, mark });
   } catch (e) {
-    if (isIfcReadError(e)) throw e;
-    throw new IfcReadError('ifc.parse-failed', e instanceof Error ? e.message : String(e), { cause: e });
+    throw asReadError(e);
   } finally {
-    if (options.stats) {
-      options.stats.openMs = tExtract - tOpen;
-      options.stats.extractMs = performance.now() - tExtract;
-      options.stats.linesRead = ctxForStats?.linesRead ?? 0;
-      options.stats.linesFromWebIfc = ctxForStats?.linesFromWebIfc ?? 0;
-      options.stats.phases = phases;
-    }
-    try {
-      api.CloseModel(opened.modelID);
-    } catch {
-      // Closing a half-opened model can throw; nothing else to release.
-    }
+    recordStats(options, tExtract - tOpen, tExtract, ctx, phases);
+    closeQuietly(api, opened.modelID);
   }
 }
 
-function lineCount(api: W.IfcAPI, modelID: number): number {
+function closeQuietly(api: Awaited<ReturnType<typeof getIfcApi>>, modelID: number): void {
+  try {
+    api.CloseModel(modelID);
+  } catch {
+    // Closing a half-opened model can throw; nothing else to release.
+  }
+}
+
+function lineCount(api: Awaited<ReturnType<typeof getIfcApi>>, modelID: number): number {
   try {
     return api.GetAllLines(modelID).size();
   } catch {
     return -1;
-  }
-}
-
-function profileDefinitions(ctx: ModelContext): ExtractedModel['profileDefinitions'] {
-  const out: ExtractedModel['profileDefinitions'] = [];
-  for (const id of ctx.idsOfType(W.IFCPARAMETERIZEDPROFILEDEF, true).sort((a, b) => a - b)) {
-    const p = readProfile(ctx, id);
-    if (p?.fromParameters && p.geometry.section) out.push({ expressId: id, ifcClass: ctx.className(id), name: p.geometry.name, section: p.geometry.section });
-  }
-  return out;
-}
-
-/** Analysis results reach physical members through product links; one value per load case. */
-function applyAnalysisForces(works: MemberWork[], analysis: ExtractedModel['analysisMembers']): void {
-  const byGid = new Map(works.map((w) => [w.member.globalId, w.member]));
-  for (const a of analysis) {
-    const perCase = new Map<string, number>();
-    for (const f of a.endForces) perCase.set(f.loadCase, Math.max(perCase.get(f.loadCase) ?? -Infinity, f.internalAxial));
-    for (const gid of a.linkedPhysicalGlobalIds) {
-      const m = byGid.get(gid);
-      if (!m) continue;
-      for (const [loadCase, n] of perCase) {
-        const force: MemberForce = { loadCase, axialForce: n, source: 'analysis-model', from: a.globalId };
-        m.forces.push(force);
-      }
-      if (a.predefinedType && ['TENSION_MEMBER', 'CABLE'].includes(a.predefinedType) && !m.tensionSignals.includes(`analysis:${a.predefinedType}`)) {
-        m.tensionSignals.push(`analysis:${a.predefinedType}`);
-        if (!m.notSteelReason) m.isTensionCandidate = true;
-      }
-    }
   }
 }

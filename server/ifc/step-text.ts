@@ -51,7 +51,15 @@ const DEFERRED = 0xffffffff;
 const DENSE_LIMIT = 64_000_000;
 
 const MAX_EXACT = 2 ** 53;
+const NO_IDS: readonly number[] = [];
 const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+
+/** A name as written, web-ifc's code for it, and the ids of the lines written with it (file order). */
+interface NameEntry {
+  bytes: Uint8Array;
+  code: number;
+  ids: number[] | null;
+}
 
 class Defer extends Error {}
 const defer = new Defer('defer');
@@ -73,7 +81,7 @@ export class StepText {
   private readonly text: Buffer;
   private pos = 0;
   /** Type codes of the names met so far, by a hash of their bytes. */
-  private readonly names = new Map<number, { bytes: Uint8Array; code: number }[]>();
+  private readonly names = new Map<number, NameEntry[]>();
 
   private constructor(
     private readonly bytes: Uint8Array,
@@ -95,6 +103,59 @@ export class StepText {
   /** Distinct express ids found in the text. */
   size = 0;
 
+  /**
+   * The lists hold every line under the type web-ifc gives it: false once a line's type cannot
+   * be read from its name (complex instances, a statement without one), an id is repeated, or
+   * one type is written in two spellings (their lines could not be put back in file order).
+   */
+  get listsExact(): boolean {
+    return this.lists().exact;
+  }
+
+  private exact = true;
+  private byType: Map<number, number[]> | null = null;
+
+  /** Ids of the lines of exactly this type, in file order, as web-ifc lists them (only meaningful while listsExact). */
+  idsOfType(code: number): readonly number[] {
+    return this.lists().byType.get(code) ?? NO_IDS;
+  }
+
+  /** The lists by type code, gathered from the names' entries once the scan is done. */
+  private lists(): { exact: boolean; byType: Map<number, number[]> } {
+    if (!this.byType) {
+      this.byType = new Map();
+      for (const entries of this.names.values()) {
+        for (const e of entries) {
+          if (!e.ids || e.code <= 0) continue;
+          if (this.byType.has(e.code)) this.exact = false;
+          else this.byType.set(e.code, e.ids);
+        }
+      }
+    }
+    return { exact: this.exact, byType: this.byType };
+  }
+
+  /** Files the line's id under the name it is written with (names web-ifc does not know are listed nowhere). */
+  private fileUnderType(id: number, start: number): void {
+    const b = this.bytes;
+    let i = start;
+    let h = 0;
+    for (;;) {
+      const c = b[i];
+      if ((c >= 0x41 && c <= 0x5a) || (c >= 0x61 && c <= 0x7a) || (c >= 0x30 && c <= 0x39) || c === 0x5f) {
+        h = (Math.imul(h, 31) + c) | 0;
+        i++;
+      } else break;
+    }
+    if (i === start) {
+      this.exact = false;
+      return;
+    }
+    const entry = this.nameEntry(h, start, i);
+    if (entry.ids) entry.ids.push(id);
+    else entry.ids = [id];
+  }
+
   /** offset null: the statement is there but web-ifc must read it. */
   private record(id: number, offset: number | null): void {
     const dense = id < DENSE_LIMIT && id <= this.bytes.length;
@@ -107,6 +168,7 @@ export class StepText {
     }
     const previous = dense ? this.offsets[id] : (this.sparse.get(id) ?? NO_OFFSET);
     if (previous === NO_OFFSET) this.size++;
+    else this.exact = false;
     // A repeated id is read the way web-ifc reads it, whichever that is.
     const value = previous !== NO_OFFSET || offset === null || offset + 1 >= DEFERRED ? DEFERRED : offset + 1;
     if (dense) this.offsets[id] = value;
@@ -186,6 +248,7 @@ export class StepText {
       if (id >= 0) {
         if (clean && i < n) this.record(id, start);
         else this.record(id, null); // cut off by the end of the file, or holds a comment
+        this.fileUnderType(id, start);
       }
       i++;
     }
@@ -417,28 +480,28 @@ export class StepText {
       } else break;
     }
     if (i === s) throw defer;
-    let code = -1;
-    const known = this.names.get(h);
-    if (known) {
-      for (const e of known) {
-        if (e.bytes.length !== i - s) continue;
-        let k = 0;
-        while (k < e.bytes.length && e.bytes[k] === b[s + k]) k++;
-        if (k === e.bytes.length) {
-          code = e.code;
-          break;
-        }
-      }
-    }
-    if (code < 0) {
-      code = this.codeOf(this.text.toString('latin1', s, i));
-      const entry = { bytes: b.slice(s, i), code };
-      if (known) known.push(entry);
-      else this.names.set(h, [entry]);
-    }
+    const code = this.nameEntry(h, s, i).code;
     while (isSpace(b[i])) i++;
     this.pos = i;
     return code;
+  }
+
+  /** The entry of the name in bytes [s, e) with hash h, made (and coded by web-ifc) the first time it is met. */
+  private nameEntry(h: number, s: number, e: number): NameEntry {
+    const b = this.bytes;
+    const known = this.names.get(h);
+    if (known) {
+      for (const entry of known) {
+        if (entry.bytes.length !== e - s) continue;
+        let k = 0;
+        while (k < entry.bytes.length && entry.bytes[k] === b[s + k]) k++;
+        if (k === entry.bytes.length) return entry;
+      }
+    }
+    const entry: NameEntry = { bytes: b.slice(s, e), code: this.codeOf(this.text.toString('latin1', s, e)), ids: null };
+    if (known) known.push(entry);
+    else this.names.set(h, [entry]);
+    return entry;
   }
 
   private skipSpace(): void {

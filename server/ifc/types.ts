@@ -36,6 +36,11 @@ export interface ReadOptions {
    * 0.5 s); imports do not use it, tests and tools do. Default true.
    */
   listProfiles?: boolean;
+  /**
+   * true: web-ifc opens the file in a thread of its own while this one reads the text
+   * (read-model.ts); false: web-ifc opens it here first. Default: true from 16 MB up.
+   */
+  openInThread?: boolean;
   /** Filled in by readIfcModel when given: where the time went, for benchmarks. */
   stats?: ReadStats;
 }
@@ -50,6 +55,8 @@ export interface ReadStats {
   linesRead: number;
   /** The file's text was indexed and web-ifc counted the same lines, so lines came from the text. */
   textReader?: boolean;
+  /** web-ifc opened the file in another thread while this one extracted (openMs is then 0). */
+  openInThread?: boolean;
   /** Of those, lines read through web-ifc's GetLine. */
   linesFromWebIfc: number;
   /** CPU ms of the process per phase of the extraction. */

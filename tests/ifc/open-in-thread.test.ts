@@ -1,0 +1,59 @@
+// Large files are opened by web-ifc in a thread of its own while the text is read and classes
+// are listed from the text's index (server/ifc/read-model.ts, readWhileOpening). That way must
+// give exactly the model, or exactly the error, of the usual one (web-ifc opens first, here).
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { readIfcModel } from '../../server/ifc/read-model.ts';
+import type { ReadStats } from '../../server/ifc/types.ts';
+import { makeSyntheticModel } from '../../scripts/samples/make-samples.ts';
+import { MUTATIONS, mutate } from '../support/ifc-mutations.ts';
+import { CORPUS_DIR } from './corpus-helpers.ts';
+
+const repoRoot = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
+const samples = readdirSync(join(repoRoot, 'samples')).filter((f) => f.endsWith('.ifc')).sort().map((f) => join(repoRoot, 'samples', f));
+const corpus = existsSync(CORPUS_DIR) ? readdirSync(CORPUS_DIR).filter((f) => f.endsWith('.ifc')).sort().map((f) => join(CORPUS_DIR, f)) : [];
+if (!corpus.length) console.warn(`open-in-thread: no corpus at ${CORPUS_DIR}; only the samples and a synthetic model are compared`);
+
+/** The model as JSON, or the error's id: what a read ends with. */
+async function outcome(bytes: Uint8Array, openInThread: boolean, stats?: ReadStats): Promise<string> {
+  try {
+    return JSON.stringify(await readIfcModel(bytes, { openInThread, stats }));
+  } catch (e) {
+    return `error ${(e as { id?: string }).id ?? (e as Error).message}`;
+  }
+}
+
+describe('web-ifc opening in its own thread', () => {
+  const files: [string, () => Uint8Array | Promise<Uint8Array>][] = [
+    ...[...corpus, ...samples].map((f): [string, () => Uint8Array] => [f.split('/').pop()!, () => new Uint8Array(readFileSync(f))]),
+    ['synthetic model of 30 members', () => makeSyntheticModel(30)],
+  ];
+  for (const [name, load] of files) {
+    it(`${name}: the same model as opening first`, async () => {
+      const bytes = await load();
+      const stats = {} as ReadStats;
+      const threaded = await outcome(bytes, true, stats);
+      expect(threaded).toBe(await outcome(bytes, false));
+      expect(threaded.startsWith('error')).toBe(false);
+    }, 60_000);
+  }
+
+  it('takes the threaded way for the samples and the synthetic model (their classes list from the text)', async () => {
+    for (const bytes of [new Uint8Array(readFileSync(samples[0])), await makeSyntheticModel(30)]) {
+      const stats = {} as ReadStats;
+      await readIfcModel(bytes, { openInThread: true, stats });
+      expect(stats.openInThread).toBe(true);
+      expect(stats.linesFromWebIfc).toBe(0);
+    }
+  });
+
+  const sample = readFileSync(samples.find((f) => f.endsWith('kestrel-yard-shed.ifc'))!);
+  for (const kind of Object.keys(MUTATIONS)) {
+    it(`a damaged sample (${kind}): the same model or the same error either way`, async () => {
+      const bytes = new Uint8Array(mutate(sample, 'kestrel-yard-shed.ifc', kind));
+      expect(await outcome(bytes, true)).toBe(await outcome(bytes, false));
+    }, 60_000);
+  }
+});
