@@ -28,8 +28,10 @@ export const OPEN_CHECK_FROM_BYTES = 16 * 1024 * 1024;
 export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {}): Promise<ExtractedModel> {
   const inThread = options.openInThread ?? bytes.length >= OPEN_CHECK_FROM_BYTES;
   if (inThread && options.readLinesWith !== 'web-ifc') {
-    const model = await readWhileOpening(bytes, options);
-    if (model) return model;
+    const read = await readWhileOpening(bytes, options);
+    if ('model' in read) return read.model;
+    // The text is indexed already; web-ifc opens the file here and decides again whether it may be used.
+    return readOpened(bytes, options, read.text);
   }
   return readOpened(bytes, options);
 }
@@ -64,11 +66,11 @@ const asReadError = (e: unknown) => (isIfcReadError(e) ? e : new IfcReadError('i
 
 /**
  * The large-file way: web-ifc opens the file in another thread while this one extracts from
- * the text. null when the text cannot stand in for web-ifc's lists or the two disagree (then
- * the caller reads the usual way). web-ifc's verdict comes first: a file it cannot open fails
+ * the text. Gives the text back when it cannot stand in for web-ifc's lists or the two disagree
+ * (then the caller reads the usual way, without indexing it again). web-ifc's verdict comes first: a file it cannot open fails
  * here as it fails in readOpened, whatever the extraction made of it.
  */
-async function readWhileOpening(bytes: Uint8Array, options: ReadOptions): Promise<ExtractedModel | null> {
+async function readWhileOpening(bytes: Uint8Array, options: ReadOptions): Promise<{ model: ExtractedModel } | { text: StepText }> {
   const progress = options.progress ?? (() => {});
   progress('reading', 0);
   const header = checkHeader(bytes);
@@ -91,7 +93,7 @@ async function readWhileOpening(bytes: Uint8Array, options: ReadOptions): Promis
       }
     };
     ctx = new ModelContext(api, openHere, header.schema, options.cacheSize, text, { schemaIdentifier: header.schemaIdentifier });
-    if (!ctx.listsFromText) return null;
+    if (!ctx.listsFromText) return { text };
     if (options.stats) {
       options.stats.textReader = true;
       options.stats.openInThread = true;
@@ -107,9 +109,9 @@ async function readWhileOpening(bytes: Uint8Array, options: ReadOptions): Promis
     }
     const verdict = await check.answer;
     if (!verdict.ok) throw openFailure(header, verdict.message);
-    if (verdict.lines !== text.size || verdict.schemaIndex !== ctx.listsSchemaIndex) return null;
+    if (verdict.lines !== text.size || verdict.schemaIndex !== ctx.listsSchemaIndex) return { text };
     if (failure) throw asReadError(failure);
-    return model;
+    return { model: model! };
   } finally {
     check.stop();
     recordStats(options, 0, tStart, ctx, phases);
@@ -118,7 +120,7 @@ async function readWhileOpening(bytes: Uint8Array, options: ReadOptions): Promis
 }
 
 /** web-ifc opens the model first, in this thread; lines then come from the text when both count the same lines. */
-async function readOpened(bytes: Uint8Array, options: ReadOptions): Promise<ExtractedModel> {
+async function readOpened(bytes: Uint8Array, options: ReadOptions, indexed?: StepText): Promise<ExtractedModel> {
   const progress = options.progress ?? (() => {});
   progress('reading', 0);
   const api = await getIfcApi();
@@ -131,10 +133,13 @@ async function readOpened(bytes: Uint8Array, options: ReadOptions): Promise<Extr
     progress('reading', 1);
     // Lines are read from the file's text wherever that gives web-ifc's own line objects
     // (step-text.ts), unless web-ifc counted other lines than the text shows (a damaged file).
-    const text = options.readLinesWith === 'web-ifc' ? null : StepText.index(bytes, (name) => api.GetTypeCodeFromName(name));
+    const text = options.readLinesWith === 'web-ifc' ? null : (indexed ?? StepText.index(bytes, (name) => api.GetTypeCodeFromName(name)));
     const agrees = text !== null && text.size === lineCount(api, opened.modelID);
     ctx = new ModelContext(api, opened.modelID, opened.schema, options.cacheSize, agrees ? text : null);
-    if (options.stats) options.stats.textReader = agrees;
+    if (options.stats) {
+      options.stats.textReader = agrees;
+      options.stats.openInThread = false;
+    }
     mark('text index');
     return await extractModel({ ctx, header: opened, options, mark });
   } catch (e) {
