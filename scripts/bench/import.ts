@@ -295,7 +295,7 @@ async function main(): Promise<void> {
           if (state.status !== 'done') throw new Error(`import of ${n} members failed: ${state.failure?.error}: ${state.failure?.message}`);
           const tm = state.summary?.timings ?? {};
           runs.push({ ms, cpu, rex: tm.readAndExtractMs ?? NaN, check: tm.checkMs ?? NaN, geometry: tm.geometryMs ?? NaN, peak, hwm: hwmOk ? peakRssOf(app.pid) : NaN, before });
-          console.log(`whole ${n} #${i + 1}: ${fmtMs(ms)}, app CPU ${fmtMs(cpu)} (worker read+extract ${fmtMs(tm.readAndExtractMs ?? NaN)}, check ${fmtMs(tm.checkMs ?? NaN)}${tm.geometryMs !== undefined ? `, display geometry ${fmtMs(tm.geometryMs)}` : ''}), MariaDB CPU ${fmtMs(dbCpu)}, app RSS ${fmtMb(before)} → peak ${fmtMb(peak)} (VmHWM ${fmtMb(runs.at(-1)!.hwm)})`);
+          console.log(`whole ${n} #${i + 1}: ${fmtMs(ms)}, app CPU ${fmtMs(cpu)} (worker read+extract ${fmtMs(tm.readAndExtractMs ?? NaN)}, check ${fmtMs(tm.checkMs ?? NaN)}${tm.storeWaitMs !== undefined ? ` of which waiting for the store ${fmtMs(tm.storeWaitMs)}` : ''}${tm.geometryMs !== undefined ? `, display geometry ${fmtMs(tm.geometryMs)}` : ''}), MariaDB CPU ${fmtMs(dbCpu)}, app RSS ${fmtMb(before)} → peak ${fmtMb(peak)} (VmHWM ${fmtMb(runs.at(-1)!.hwm)})`);
           if (flag('timeline')) console.log(`  ${timeline.join(' → ')}`);
           if (flag('quick')) continue;
           // The 3D geometry is built after the results are stored; let it finish so the next import starts on an idle app.

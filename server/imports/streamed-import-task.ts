@@ -20,6 +20,8 @@ export async function runImportTaskForStore(task: ImportTask): Promise<StreamedI
     const { model, settings } = await readForChecks(task, post, timings);
     const t0 = performance.now();
     const tally = emptyTally();
+    // Time the check stood still because the request thread had not yet stored earlier slices.
+    let waitedMs = 0;
     let inFlight = 0;
     let wake: (() => void) | null = null;
     port.on('message', (m: SliceTaken) => {
@@ -32,11 +34,14 @@ export async function runImportTaskForStore(task: ImportTask): Promise<StreamedI
       port.postMessage({ members: records.map(toStorable) } satisfies SliceMessage);
       inFlight++;
       post('checking', fraction);
+      const t = performance.now();
       while (inFlight >= SLICES_IN_FLIGHT) await new Promise<void>((resolve) => (wake = resolve));
+      waitedMs += performance.now() - t;
       wake = null;
     });
     port.postMessage({ end: true, count: tally.candidates } satisfies SliceMessage);
     timings.checkMs = performance.now() - t0;
+    timings.storeWaitMs = waitedMs;
     const summary = summarise(model, tally, timings);
     // The 3D view's geometry is built afterwards (run-geometry-task.ts), so it never holds results back.
     summary.geometry = 'pending';
