@@ -13,6 +13,7 @@
  * - otherwise (small files, text that cannot list classes exactly, or the two disagree) web-ifc
  *   opens the model here first, as it always did.
  */
+import type { IfcAPI } from 'web-ifc';
 import { extractModel } from './extract-model.ts';
 import { getIfcApi } from './ifc-api.ts';
 import { IfcReadError, isIfcReadError } from './ifc-errors.ts';
@@ -150,7 +151,7 @@ async function readOpened(bytes: Uint8Array, options: ReadOptions, indexed?: Ste
   }
 }
 
-function closeQuietly(api: Awaited<ReturnType<typeof getIfcApi>>, modelID: number): void {
+function closeQuietly(api: IfcAPI, modelID: number): void {
   try {
     api.CloseModel(modelID);
   } catch {
@@ -158,7 +159,7 @@ function closeQuietly(api: Awaited<ReturnType<typeof getIfcApi>>, modelID: numbe
   }
 }
 
-function lineCount(api: Awaited<ReturnType<typeof getIfcApi>>, modelID: number): number {
+function lineCount(api: IfcAPI, modelID: number): number {
   try {
     return api.GetAllLines(modelID).size();
   } catch {

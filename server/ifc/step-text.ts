@@ -137,23 +137,33 @@ export class StepText {
 
   /** Files the line's id under the name it is written with (names web-ifc does not know are listed nowhere). */
   private fileUnderType(id: number, start: number): void {
+    const end = this.nameEnd(start);
+    if (end === start) {
+      this.exact = false;
+      return;
+    }
+    const entry = this.nameEntry(this.nameHash, start, end);
+    if (entry.ids) entry.ids.push(id);
+    else entry.ids = [id];
+  }
+
+  /** Hash of the name last scanned by nameEnd. */
+  private nameHash = 0;
+
+  /** End of the entity or type name (letters, digits, '_') starting at s; its hash is left in nameHash. */
+  private nameEnd(s: number): number {
     const b = this.bytes;
-    let i = start;
+    let i = s;
     let h = 0;
     for (;;) {
       const c = b[i];
-      if ((c >= 0x41 && c <= 0x5a) || (c >= 0x61 && c <= 0x7a) || (c >= 0x30 && c <= 0x39) || c === 0x5f) {
+      if ((c >= 0x41 && c <= 0x5a) || (c >= 0x61 && c <= 0x7a) || isDigit(c) || c === 0x5f) {
         h = (Math.imul(h, 31) + c) | 0;
         i++;
       } else break;
     }
-    if (i === start) {
-      this.exact = false;
-      return;
-    }
-    const entry = this.nameEntry(h, start, i);
-    if (entry.ids) entry.ids.push(id);
-    else entry.ids = [id];
+    this.nameHash = h;
+    return i;
   }
 
   /** offset null: the statement is there but web-ifc must read it. */
@@ -470,17 +480,9 @@ export class StepText {
   private typeCode(): number {
     const b = this.bytes;
     const s = this.pos;
-    let i = s;
-    let h = 0;
-    for (;;) {
-      const c = b[i];
-      if ((c >= 0x41 && c <= 0x5a) || (c >= 0x61 && c <= 0x7a) || isDigit(c) || c === 0x5f) {
-        h = (Math.imul(h, 31) + c) | 0;
-        i++;
-      } else break;
-    }
+    let i = this.nameEnd(s);
     if (i === s) throw defer;
-    const code = this.nameEntry(h, s, i).code;
+    const code = this.nameEntry(this.nameHash, s, i).code;
     while (isSpace(b[i])) i++;
     this.pos = i;
     return code;

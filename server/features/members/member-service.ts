@@ -12,8 +12,7 @@ import { presentMemberRow } from './member-presenter';
 
 const ROW_ATTRIBUTES = { exclude: ['detail'] };
 
-/** One page of the member table, served from the revision's in-memory copy (member-table-cache.ts). */
-/** One page of the member table as JSON text (MemberPage): the table route sends it as it is. */
+/** One page of the member table as JSON text (MemberPage), from the revision's in-memory copy (member-table-cache.ts): the table route sends it as it is. */
 export async function listMembersJson(revision: Pick<RevisionModel, 'id' | 'resultsVersion'>, q: z.output<typeof memberQuerySchema>): Promise<string> {
   return cachedMemberPageJson(revision.id, revision.resultsVersion, q);
 }

@@ -27,7 +27,8 @@ type SheetRow = Record<string, unknown> & SheetExtras;
 type ForceRow = { loadCase: string; axialN: number; source: string };
 
 /** A member's GlobalId as IFC writes it: 22 characters of its base-64 alphabet. */
-export const GLOBAL_ID = /^[0-9A-Za-z_$]{22}$/;
+const GLOBAL_ID_CHARS = '[0-9A-Za-z_$]{22}';
+export const GLOBAL_ID = new RegExp(`^${GLOBAL_ID_CHARS}$`);
 
 /**
  * The sheet's two statements: the member with its revision and stored result in one join,
@@ -82,7 +83,7 @@ export async function memberSheetJson(user: SessionUser, projectId: number, revi
   return sheetJsonOf(revisionId, rows, forces);
 }
 
-const SHEET_PATH = /^\/projects\/(\d{1,15})\/revisions\/(\d{1,15})\/members\/([0-9A-Za-z_$]{22})(?:\?|$)/;
+const SHEET_PATH = new RegExp(`^/projects/(\\d{1,15})/revisions/(\\d{1,15})/members/(${GLOBAL_ID_CHARS})(?:\\?|$)`);
 const COMPANION = 'member-sheet';
 
 /**
