@@ -74,7 +74,7 @@ export function drawEnd(doc: PDFKit.PDFDocument, box: Box, section: Section, end
 function drawChain(
   doc: PDFKit.PDFDocument,
   holes: { x: number; y: number }[],
-  segments: { y0: number; y1: number; part: number }[],
+  segments: readonly { y0: number; y1: number; part: number }[],
   W: number,
   X: (x: number) => number,
   Y: (y: number) => number,

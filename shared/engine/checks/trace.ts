@@ -2,6 +2,8 @@ import type { Assumption, CheckMode, TraceStep } from './types.ts';
 
 /** Numbers as an engineer writes them by hand: up to 4 significant decimals, no float noise. */
 export function fmt(v: number): string {
+  // Whole numbers (areas, strengths, most lengths) need no rounding: toFixed is the slow part.
+  if (Number.isInteger(v) && Math.abs(v) < 1e21) return String(v);
   if (!Number.isFinite(v)) return String(v);
   const a = Math.abs(v);
   const digits = a >= 1000 ? 0 : a >= 100 ? 1 : a >= 1 ? 3 : 4;

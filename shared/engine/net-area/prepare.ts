@@ -72,11 +72,6 @@ export function prepareStrip(holes: readonly StripHole[], thickness: number, yTo
  */
 function sortByYX(holes: readonly StripHole[], out: Int32Array): Int32Array {
   const n = holes.length;
-  const before = (a: number, b: number) => {
-    const ha = holes[a];
-    const hb = holes[b];
-    return ha.y < hb.y || (ha.y === hb.y && (ha.x < hb.x || (ha.x === hb.x && a < b)));
-  };
   if (n > 32) {
     const idx = Array.from({ length: n }, (_, i) => i).sort((a, b) => holes[a].y - holes[b].y || holes[a].x - holes[b].x || a - b);
     for (let i = 0; i < n; i++) out[i] = idx[i];
@@ -84,11 +79,18 @@ function sortByYX(holes: readonly StripHole[], out: Int32Array): Int32Array {
   }
   for (let i = 0; i < n; i++) {
     let k = i;
-    while (k > 0 && before(i, out[k - 1])) {
+    while (k > 0 && holeBefore(holes, i, out[k - 1])) {
       out[k] = out[k - 1];
       k--;
     }
     out[k] = i;
   }
   return out;
+}
+
+/** True when hole a comes before hole b in (y, x, index) order. */
+function holeBefore(holes: readonly StripHole[], a: number, b: number): boolean {
+  const ha = holes[a];
+  const hb = holes[b];
+  return ha.y < hb.y || (ha.y === hb.y && (ha.x < hb.x || (ha.x === hb.x && a < b)));
 }

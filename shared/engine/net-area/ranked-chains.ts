@@ -1,6 +1,31 @@
 import type { PreparedStrip } from './prepare.ts';
 import type { BestChain } from './longest-path.ts';
 
+interface RankLists {
+  vals: Float64Array;
+  pNode: Int32Array;
+  pRank: Int32Array;
+}
+
+/**
+ * Puts a partial chain worth `v` into the sorted list of k at `base` that holds `c` entries;
+ * returns the new count. A plain function (not a closure per node): it runs for every pair.
+ */
+function insertRanked({ vals, pNode, pRank }: RankLists, base: number, k: number, c: number, v: number, node: number, rank: number): number {
+  if (c === k && v <= vals[base + k - 1]) return c;
+  let at = c < k ? c : k - 1;
+  while (at > 0 && vals[base + at - 1] < v) {
+    vals[base + at] = vals[base + at - 1];
+    pNode[base + at] = pNode[base + at - 1];
+    pRank[base + at] = pRank[base + at - 1];
+    at--;
+  }
+  vals[base + at] = v;
+  pNode[base + at] = node;
+  pRank[base + at] = rank;
+  return c < k ? c + 1 : c;
+}
+
 /**
  * The k best distinct chains, for display next to the governing one.
  *
@@ -17,24 +42,10 @@ export function rankedChains(p: PreparedStrip, k: number): BestChain[] {
   const pNode = new Int32Array(n * k);
   const pRank = new Int32Array(n * k);
   const count = new Int32Array(n);
+  const lists: RankLists = { vals, pNode, pRank };
   for (let j = 0; j < n; j++) {
     const base = j * k;
-    let c = 0;
-    const insert = (v: number, node: number, rank: number) => {
-      if (c === k && v <= vals[base + k - 1]) return;
-      let at = c < k ? c : k - 1;
-      while (at > 0 && vals[base + at - 1] < v) {
-        vals[base + at] = vals[base + at - 1];
-        pNode[base + at] = pNode[base + at - 1];
-        pRank[base + at] = pRank[base + at - 1];
-        at--;
-      }
-      vals[base + at] = v;
-      pNode[base + at] = node;
-      pRank[base + at] = rank;
-      if (c < k) c++;
-    };
-    insert(w[j], -1, -1);
+    let c = insertRanked(lists, base, k, 0, w[j], -1, -1);
     for (let i = 0; i < lineStart[j]; i++) {
       const s = x[j] - x[i];
       const ti = t[i] < t[j] ? t[i] : t[j];
@@ -42,7 +53,7 @@ export function rankedChains(p: PreparedStrip, k: number): BestChain[] {
       for (let r = 0; r < count[i]; r++) {
         const v = vals[i * k + r] - credit + w[j];
         if (c === k && v <= vals[base + k - 1]) break; // lists are sorted: the rest are worse
-        insert(v, i, r);
+        c = insertRanked(lists, base, k, c, v, i, r);
       }
     }
     count[j] = c;

@@ -13,12 +13,12 @@ export interface StripSegment {
 /** The developed (unfolded centre-line) strip of a section. */
 export interface DevelopedStrip {
   /** Total developed width, mm. */
-  width: number;
-  segments: StripSegment[];
+  readonly width: number;
+  readonly segments: readonly Readonly<StripSegment>[];
   /** True for I and tee: elements meet at a junction with three branches. */
-  branched: boolean;
+  readonly branched: boolean;
   /** True for CHS/RHS: the strip is a ring cut open at y = 0. */
-  closed: boolean;
+  readonly closed: boolean;
 }
 
 /**
@@ -42,7 +42,20 @@ export interface DevelopedStrip {
  *  - round-bar: y across the diameter (a cross-hole pierces the full bar).
  */
 export function developedStrip(s: Section): DevelopedStrip {
-  const seg = (element: string, y0: number, len: number, t: number, part = 0): StripSegment => ({ element, y0, y1: y0 + len, t, part });
+  // A check asks for the strip of one section several times (each hole, net area, width
+  // check); sections are never changed once made, so the strip is worked out once per object.
+  let strip = strips.get(s);
+  if (!strip) strips.set(s, (strip = buildStrip(s)));
+  return strip;
+}
+
+const strips = new WeakMap<Section, DevelopedStrip>();
+
+function seg(element: string, y0: number, len: number, t: number, part = 0): StripSegment {
+  return { element, y0, y1: y0 + len, t, part };
+}
+
+function buildStrip(s: Section): DevelopedStrip {
   switch (s.shape) {
     case 'flat':
       return strip([seg('plate', 0, s.width, s.thickness)]);
@@ -89,7 +102,7 @@ export function developedWidth(s: Section): number {
  * On a boundary the earlier element wins (for an angle, the heel belongs to leg A).
  * `tolerance` (mm) accepts round-off just past either end.
  */
-export function segmentAt(s: Section, y: number, tolerance = 0.5): StripSegment | null {
+export function segmentAt(s: Section, y: number, tolerance = 0.5): Readonly<StripSegment> | null {
   const { segments, width } = developedStrip(s);
   if (!(y >= -tolerance && y <= width + tolerance)) return null;
   return segments.find((g) => y <= g.y1) ?? segments[segments.length - 1];

@@ -1,5 +1,5 @@
 import type { Section } from '../section-types.ts';
-import { developedStrip } from './developed-strip.ts';
+import { developedStrip, type StripSegment } from './developed-strip.ts';
 
 /** Where a hole sits on the developed strip: y (mm), pierced thickness t (mm), element and branch. */
 export interface StripLocation {
@@ -7,6 +7,21 @@ export interface StripLocation {
   t: number;
   element: string;
   part: number;
+}
+
+// Helpers take what they need as arguments instead of closing over it: this runs for every
+// hole of an import, and a closure per call costs more than the test it makes.
+function inside(tol: number, a: number, lo: number, hi: number): boolean {
+  return a >= lo - tol && a <= hi + tol;
+}
+
+function clamp(a: number, lo: number, hi: number): number {
+  return Math.min(Math.max(a, lo), hi);
+}
+
+function onSegment(segs: readonly Readonly<StripSegment>[], i: number, y: number): StripLocation {
+  const g = segs[i];
+  return { y: clamp(y, g.y0, g.y1), t: g.t, element: g.element, part: g.part };
 }
 
 /**
@@ -21,67 +36,64 @@ export interface StripLocation {
 export function locateOnStrip(s: Section, p: { u: number; v: number }, tolerance = 0.5): StripLocation | null {
   const { u, v } = p;
   const tol = tolerance;
-  const within = (a: number, lo: number, hi: number) => a >= lo - tol && a <= hi + tol;
-  const clamp = (a: number, lo: number, hi: number) => Math.min(Math.max(a, lo), hi);
   const segs = developedStrip(s).segments;
-  const at = (i: number, y: number): StripLocation => ({ y: clamp(y, segs[i].y0, segs[i].y1), t: segs[i].t, element: segs[i].element, part: segs[i].part });
   switch (s.shape) {
     case 'flat':
-      return within(u, -s.width / 2, s.width / 2) && within(v, -s.thickness / 2, s.thickness / 2) ? at(0, u + s.width / 2) : null;
+      return inside(tol, u, -s.width / 2, s.width / 2) && inside(tol, v, -s.thickness / 2, s.thickness / 2) ? onSegment(segs, 0, u + s.width / 2) : null;
     case 'angle': {
       const t = s.thickness;
-      if (!within(u, 0, s.legA) || !within(v, 0, s.legB)) return null;
+      if (!inside(tol, u, 0, s.legA) || !inside(tol, v, 0, s.legB)) return null;
       if (u > t + tol && v > t + tol) return null; // inside the re-entrant corner, off material
-      if (u >= t && v <= t + tol) return at(0, s.legA - u);
-      if (v >= t && u <= t + tol) return at(1, s.legA + v - t);
-      return at(0, s.legA - t / 2); // heel square
+      if (u >= t && v <= t + tol) return onSegment(segs, 0, s.legA - u);
+      if (v >= t && u <= t + tol) return onSegment(segs, 1, s.legA + v - t);
+      return onSegment(segs, 0, s.legA - t / 2); // heel square
     }
     case 'channel': {
       const { depth: h, flangeWidth: bf, webThickness: tw, flangeThickness: tf } = s;
-      if (!within(u, 0, bf) || !within(v, -h / 2, h / 2)) return null;
+      if (!inside(tol, u, 0, bf) || !inside(tol, v, -h / 2, h / 2)) return null;
       const inFlange = Math.abs(v) >= h / 2 - tf - tol;
       const a = bf - tw / 2;
       if (u > tw + tol) {
         if (!inFlange) return null;
-        return v < 0 ? at(0, bf - u) : at(2, a + (h - tf) + (u - tw / 2));
+        return v < 0 ? onSegment(segs, 0, bf - u) : onSegment(segs, 2, a + (h - tf) + (u - tw / 2));
       }
-      if (inFlange && u > tw / 2 + tol) return v < 0 ? at(0, bf - u) : at(2, a + (h - tf) + (u - tw / 2));
-      return at(1, a + v + (h - tf) / 2);
+      if (inFlange && u > tw / 2 + tol) return v < 0 ? onSegment(segs, 0, bf - u) : onSegment(segs, 2, a + (h - tf) + (u - tw / 2));
+      return onSegment(segs, 1, a + v + (h - tf) / 2);
     }
     case 'i': {
       const { depth: h, flangeWidth: bf, webThickness: tw, flangeThickness: tf } = s;
-      if (!within(u, -bf / 2, bf / 2) || !within(v, -h / 2, h / 2)) return null;
-      if (Math.abs(v) >= h / 2 - tf) return v < 0 ? at(0, u + bf / 2) : at(2, bf + h - tf + u + bf / 2);
-      if (!within(u, -tw / 2, tw / 2)) return null;
-      return at(1, bf + v + (h - tf) / 2);
+      if (!inside(tol, u, -bf / 2, bf / 2) || !inside(tol, v, -h / 2, h / 2)) return null;
+      if (Math.abs(v) >= h / 2 - tf) return v < 0 ? onSegment(segs, 0, u + bf / 2) : onSegment(segs, 2, bf + h - tf + u + bf / 2);
+      if (!inside(tol, u, -tw / 2, tw / 2)) return null;
+      return onSegment(segs, 1, bf + v + (h - tf) / 2);
     }
     case 'tee': {
       // v is measured from the flange's outer face into the stem; its sign is ignored.
       const { depth: h, flangeWidth: bf, webThickness: tw, flangeThickness: tf } = s;
       const d = Math.abs(v);
-      if (!within(d, 0, h)) return null;
-      if (d <= tf) return within(u, -bf / 2, bf / 2) ? at(0, u + bf / 2) : null;
-      return within(u, -tw / 2, tw / 2) ? at(1, bf + d - tf / 2) : null;
+      if (!inside(tol, d, 0, h)) return null;
+      if (d <= tf) return inside(tol, u, -bf / 2, bf / 2) ? onSegment(segs, 0, u + bf / 2) : null;
+      return inside(tol, u, -tw / 2, tw / 2) ? onSegment(segs, 1, bf + d - tf / 2) : null;
     }
     case 'rhs': {
       const { width: B, depth: H, thickness: t } = s;
-      if (!within(u, -B / 2, B / 2) || !within(v, -H / 2, H / 2)) return null;
+      if (!inside(tol, u, -B / 2, B / 2) || !inside(tol, v, -H / 2, H / 2)) return null;
       const a = (B - t) / 2;
       const b = (H - t) / 2;
       if (Math.abs(v) >= H / 2 - t - tol) {
         const x = clamp(u, -a, a);
-        return v < 0 ? at(0, x + a) : at(2, 2 * a + 2 * b + (a - x));
+        return v < 0 ? onSegment(segs, 0, x + a) : onSegment(segs, 2, 2 * a + 2 * b + (a - x));
       }
       if (Math.abs(u) < B / 2 - t - tol) return null; // in the void
       const w = clamp(v, -b, b);
-      return u > 0 ? at(1, 2 * a + w + b) : at(3, 4 * a + 2 * b + (b - w));
+      return u > 0 ? onSegment(segs, 1, 2 * a + w + b) : onSegment(segs, 3, 4 * a + 2 * b + (b - w));
     }
     case 'chs': {
       const r = Math.hypot(u, v);
-      if (!within(r, s.diameter / 2 - s.thickness, s.diameter / 2)) return null;
+      if (!inside(tol, r, s.diameter / 2 - s.thickness, s.diameter / 2)) return null;
       let theta = Math.atan2(v, u);
       if (theta < 0) theta += 2 * Math.PI;
-      return at(0, ((s.diameter - s.thickness) / 2) * theta);
+      return onSegment(segs, 0, ((s.diameter - s.thickness) / 2) * theta);
     }
     case 'round-bar': {
       // A cross-hole along v removes d × the chord at offset u.
