@@ -1,5 +1,6 @@
 import { Sequelize } from 'sequelize';
 import type { AppConfig } from '../config/config';
+import { mariadbForSequelize } from './mariadb-driver';
 import { initUserModel, UserModel } from './models/user';
 import { initProjectModel, ProjectModel } from './models/project';
 import { initProjectMemberModel, ProjectMemberModel } from './models/project-member';
@@ -19,6 +20,7 @@ export function createDatabase(config: AppConfig['db']): Sequelize {
     host: config.host,
     port: config.port,
     dialect: 'mariadb',
+    dialectModule: mariadbForSequelize,
     logging: false,
     pool: { max: config.poolMax, min: 0, acquire: 10_000, idle: 10_000 },
     dialectOptions: { connectTimeout: 5_000 },
