@@ -7,6 +7,7 @@ import type { FileStore } from '../../storage/file-store';
 import { parseBody, parseId } from '../../http/validate';
 import { currentUser, requireRole, requireSignedIn } from '../../http/require-user';
 import { findEditableProject, findVisibleProject } from '../projects/project-policy';
+import type { HashedFileInfo } from '../uploads/hashing-disk-storage';
 import { uploadMiddleware } from '../uploads/upload-middleware';
 import { acceptUpload } from '../uploads/upload-service';
 import { uploadErrors } from '../uploads/sniff-upload';
@@ -59,7 +60,7 @@ export function modelRoutes(sequelize: Sequelize, config: AppConfig, store: File
         store,
         currentUser(req),
         project,
-        { path: req.file.path, originalName: req.file.originalname, size: req.file.size },
+        { path: req.file.path, originalName: req.file.originalname, size: req.file.size, sha256: (req.file as Partial<HashedFileInfo>).sha256 },
         fields.modelName,
       );
       if (!outcome.duplicateOf) onQueued();

@@ -1,24 +1,21 @@
 import multer from 'multer';
 import { mkdirSync } from 'node:fs';
-import { randomBytes } from 'node:crypto';
 import path from 'node:path';
 import type { RequestHandler } from 'express';
 import type { AppConfig } from '../../config/config';
 import { AppError } from '../../http/errors';
+import { hashingDiskStorage } from './hashing-disk-storage';
 import { kindFromName, uploadErrors } from './sniff-upload';
 
 /**
  * Streams one file to disk under a random name (never the client's), within the size
- * limit. Refuses other extensions before any byte is stored.
+ * limit, hashing it on the way (`req.file.sha256`). Refuses other extensions before any byte is stored.
  */
 export function uploadMiddleware(config: AppConfig): RequestHandler {
   const incoming = path.resolve(config.dataDir, 'uploads', 'incoming');
   mkdirSync(incoming, { recursive: true });
   const upload = multer({
-    storage: multer.diskStorage({
-      destination: incoming,
-      filename: (_req, _file, cb) => cb(null, `${Date.now()}-${randomBytes(8).toString('hex')}.upload`),
-    }),
+    storage: hashingDiskStorage(incoming),
     limits: { fileSize: config.uploads.limitBytes, files: 1, fields: 5, fieldSize: 4096, parts: 8 },
     // Browsers send file names as raw UTF-8; busboy's default (latin1) would garble them.
     defParamCharset: 'utf8',

@@ -12,6 +12,8 @@ export interface ReceivedFile {
   path: string;
   originalName: string;
   size: number;
+  /** SHA-256 (hex) worked out while the file was received; read from the file when absent. */
+  sha256?: string;
 }
 
 export interface UploadOutcome {
@@ -55,7 +57,7 @@ export async function acceptUpload(
     if (!kind) throw uploadErrors.wrongType();
     if (file.size === 0) throw uploadErrors.empty();
     await sniffUpload(file.path, kind);
-    const sha256 = await sha256OfFile(file.path);
+    const sha256 = file.sha256 ?? (await sha256OfFile(file.path));
     const fileName = cleanFileName(file.originalName);
     const modelName = modelNameFor(fileName, givenModelName);
     const storageKey = `ifc/${sha256}.${kind}`;
