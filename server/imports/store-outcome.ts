@@ -55,12 +55,15 @@ export async function storeStreamed(
     // (holding pool connections) for as long as slices keep coming. The revision is the one
     // this process has claimed, so the check is left out for these inserts, and only them; if
     // the revision went meanwhile, the claim check at the end fails and nothing is kept.
-    await sequelize.query('SET SESSION foreign_key_checks = 0', { transaction });
+    // MariaDB's JSON columns carry a JSON_VALID check; the detail and result texts are the
+    // worker's JSON.stringify output, and validating them again took about half of MariaDB's
+    // CPU for these inserts (20,000 members: 1.6–2.0 s → 0.9–1.1 s). Off for them too.
+    await sequelize.query('SET SESSION foreign_key_checks = 0, check_constraint_checks = 0', { transaction });
     let lastId = 0;
     try {
       for (let slice = first; !slice.done; slice = await iterator.next()) lastId = await writeSlice(transaction, revisionId, standard, slice.value, lastId);
     } finally {
-      await sequelize.query('SET SESSION foreign_key_checks = 1', { transaction });
+      await sequelize.query('SET SESSION foreign_key_checks = 1, check_constraint_checks = 1', { transaction });
     }
     const s = await summary();
     const [affected] = await RevisionModel.update(

@@ -1,5 +1,5 @@
 // Storing an import's members as they arrive in slices: all or nothing, the claim respected,
-// and the connection handed back to the pool as it was taken (key checks on).
+// and the connection handed back to the pool as it was taken (key and constraint checks on).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
@@ -103,9 +103,10 @@ describe('storing members in slices', () => {
     expect(await counts()).toEqual({ members: 0, forces: 0, results: 0 });
   });
 
-  it('hands its connection back with foreign key checks on', async () => {
-    const [row] = await sql<{ on: number }>('SELECT @@SESSION.foreign_key_checks AS `on`');
+  it('hands its connection back with foreign key and constraint checks on', async () => {
+    const [row] = await sql<{ on: number; checks: number }>('SELECT @@SESSION.foreign_key_checks AS `on`, @@SESSION.check_constraint_checks + 0 AS checks');
     expect(Number(row?.on)).toBe(1);
+    expect(Number(row?.checks)).toBe(1);
     await expect(MemberModel.sequelize!.query('INSERT INTO member_forces (member_id, load_case, axial_n, source, created_at) VALUES (999999999, ?, 1, ?, NOW())', { replacements: ['LC', 'manual'] }))
       .rejects.toThrow(/foreign key/i);
   });
