@@ -17,8 +17,8 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { serialize } from 'node:v8';
 import {
-  BENCH_DIR, ROOT, cpuMsOf, firstProjectId, median, fmtMb, fmtMs, fmtSpread, peakRssOf, resetPeakRss, rssOf, sampleRss, signIn,
-  spread, startAppProcess, startThrowawayDb, table, uploadFile, waitForGeometry, waitForRevision, writeResults, type Spread,
+  BENCH_DIR, ROOT, cpuMsOf, firstProjectId, median, fmtMb, fmtMs, fmtSpread, peakRssOf, resetPeakRss, rssOf, sampleRss, sampleThreadCpu,
+  signIn, spread, startAppProcess, startThrowawayDb, table, uploadFile, waitForGeometry, waitForRevision, writeResults, type Spread,
 } from './lib/bench-support.ts';
 
 const SELF = fileURLToPath(import.meta.url);
@@ -262,7 +262,9 @@ async function main(): Promise<void> {
   try {
     // --app-profile=DIR: V8 CPU profiles of the app process and its threads, written when it stops.
     const appProfile = arg('app-profile');
-    const app = await startAppProcess(db.env, { IMPORT_WORKERS: '1', UPLOAD_LIMIT_MB: '2000' }, appProfile ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(appProfile)}`] : []);
+    // --app-node-args="--a --b" adds Node/V8 options to the app process (tuning experiments).
+    const nodeArgs = [...(arg('app-node-args')?.split(' ').filter(Boolean) ?? []), ...(appProfile ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(appProfile)}`] : [])];
+    const app = await startAppProcess(db.env, { IMPORT_WORKERS: '1', UPLOAD_LIMIT_MB: '2000' }, nodeArgs);
     try {
       const session = await signIn(app.url);
       const projectId = await firstProjectId(app.url, session);
@@ -283,6 +285,7 @@ async function main(): Promise<void> {
           const hwmOk = resetPeakRss(app.pid);
           const sampler = sampleRss(app.pid, 50);
           const cpu0 = cpuMsOf(app.pid);
+          const threads = sampleThreadCpu(app.pid);
           const dbCpu0 = cpuMsOf(dbPid);
           const t0 = performance.now();
           const up = await uploadFile(app.url, session, projectId, file, `bench ${n} #${i + 1} ${Date.now()}`);
@@ -290,6 +293,7 @@ async function main(): Promise<void> {
           const state = await waitForRevision(app.url, session, projectId, up.revisionId, 50, (st, p) => timeline.push(`${st} ${Math.round(p * 100)}% @${fmtMs(performance.now() - t0)} ${fmtMb(rssOf(app.pid))}`));
           const ms = performance.now() - t0;
           const cpu = cpuMsOf(app.pid) - cpu0;
+          const threadCpu = threads.stop();
           const dbCpu = cpuMsOf(dbPid) - dbCpu0;
           const { peak } = sampler.stop();
           if (state.status !== 'done') throw new Error(`import of ${n} members failed: ${state.failure?.error}: ${state.failure?.message}`);
@@ -297,6 +301,7 @@ async function main(): Promise<void> {
           runs.push({ ms, cpu, rex: tm.readAndExtractMs ?? NaN, check: tm.checkMs ?? NaN, geometry: tm.geometryMs ?? NaN, peak, hwm: hwmOk ? peakRssOf(app.pid) : NaN, before });
           console.log(`whole ${n} #${i + 1}: ${fmtMs(ms)}, app CPU ${fmtMs(cpu)} (worker read+extract ${fmtMs(tm.readAndExtractMs ?? NaN)}, check ${fmtMs(tm.checkMs ?? NaN)}${tm.storeWaitMs !== undefined ? ` of which waiting for the store ${fmtMs(tm.storeWaitMs)}` : ''}${tm.geometryMs !== undefined ? `, display geometry ${fmtMs(tm.geometryMs)}` : ''}), MariaDB CPU ${fmtMs(dbCpu)}, app RSS ${fmtMb(before)} → peak ${fmtMb(peak)} (VmHWM ${fmtMb(runs.at(-1)!.hwm)})`);
           if (flag('timeline')) console.log(`  ${timeline.join(' → ')}`);
+          console.log(`  app CPU by thread: ${Object.entries(threadCpu).filter(([, ms]) => ms >= 50).sort((a, b) => b[1] - a[1]).map(([name, ms]) => `${name} ${fmtMs(ms)}`).join(', ')}`);
           if (flag('quick')) continue;
           // The 3D geometry is built after the results are stored; let it finish so the next import starts on an idle app.
           const geo = await waitForGeometry(app.url, session, projectId, up.revisionId);

@@ -4,7 +4,7 @@
  */
 import { fork, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { freePort } from '../../lib/free-port.ts';
 import os from 'node:os';
 import path from 'node:path';
@@ -282,4 +282,43 @@ export function readResults<T>(name: string): T | null {
   } catch {
     return null;
   }
+}
+
+/**
+ * CPU per thread of a process while it runs (sampled every `everyMs` from /proc/<pid>/task,
+ * so threads that start and end in between are caught): ms per thread on stop, keyed by its
+ * name (comm), "main" or its tid, and "new" for threads started after sampling began. Node
+ * leaves most of its threads named "node", so the tid tells them apart.
+ */
+export function sampleThreadCpu(pid: number, everyMs = 100): { stop(): Record<string, number> } {
+  const read = (into: Map<string, { name: string; ms: number }>) => {
+    let tids: string[] = [];
+    try {
+      tids = readdirSync(`/proc/${pid}/task`);
+    } catch {
+      return;
+    }
+    for (const tid of tids) {
+      try {
+        const stat = readFileSync(`/proc/${pid}/task/${tid}/stat`, 'utf8');
+        const f = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+        into.set(tid, { name: stat.slice(stat.indexOf('(') + 1, stat.lastIndexOf(')')), ms: (Number(f[11]) + Number(f[12])) * 10 });
+      } catch {
+        // the thread ended between the listing and the read
+      }
+    }
+  };
+  const base = new Map<string, { name: string; ms: number }>();
+  read(base);
+  const last = new Map<string, { name: string; ms: number }>();
+  const timer = setInterval(() => read(last), everyMs);
+  return {
+    stop() {
+      clearInterval(timer);
+      read(last);
+      const byThread: Record<string, number> = {};
+      for (const [tid, { name, ms }] of last) byThread[tid === String(pid) ? `${name} main` : `${name} ${base.has(tid) ? '' : 'new '}#${tid}`] = ms - (base.get(tid)?.ms ?? 0);
+      return byThread;
+    },
+  };
 }
