@@ -24,13 +24,17 @@ describe('batchInsert through the app connection', () => {
   });
 
   it('stores every value of multi-megabyte batches intact', async () => {
-    const rows = (count: number, batch: number) => Array.from({ length: count }, (_, i) => {
+    const rows = (count: number, batch: number, noteLength = 4494) => Array.from({ length: count }, (_, i) => {
       const n = batch * 10_000 + i;
       const body = JSON.stringify({ n, trace: Array.from({ length: 24 }, (_, k) => ({ symbol: `φNt${k}`, unit: 'mm²', substituted: `0.9 × ${n + k}` })) });
-      return [n, body, `${String(n).padStart(6, '0')}${'x'.repeat(4494)}`];
+      return [n, body, `${String(n).padStart(6, '0')}${'x'.repeat(noteLength)}`];
     });
-    const batches = [rows(1000, 0), rows(2000, 1)];
-    expect(batches[1].reduce((sum, r) => sum + String(r[1]).length + String(r[2]).length, 0)).toBeGreaterThan(8e6);
+    // The last batch is larger than MariaDB's packet limit (16 MB here): the driver must split it.
+    const batches = [rows(1000, 0), rows(2000, 1), rows(1500, 2, 11_000)];
+    const bytes = (b: unknown[][]) => b.reduce((sum, r) => sum + Buffer.byteLength(String(r[1])) + String(r[2]).length, 0);
+    expect(bytes(batches[1])).toBeGreaterThan(8e6);
+    const [[{ packet }]] = (await sequelize.query('SELECT @@max_allowed_packet AS packet')) as [{ packet: number }[], unknown];
+    expect(bytes(batches[2])).toBeGreaterThan(Number(packet));
     await sequelize.transaction(async (transaction) => {
       for (const b of batches) await batchInsert(transaction, 'batch_probe', ['n', 'body', 'note'], b);
     });
