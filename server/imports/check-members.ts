@@ -1,9 +1,10 @@
-import { checkMemberRaw, locateOnStrip, identifyGrade, type CheckResult, type MemberCheckInputRaw } from '@shared/engine';
+import { locateOnStrip, identifyGrade, type CheckResult, type MemberCheckInputRaw } from '@shared/engine';
 import type { StandardId } from '@shared/api/projects';
 import type { MemberDetail, MemberEndDetail, StripHole } from '@shared/api/member-detail';
 import { bandOf, type ResultBand } from '@shared/api/results';
 import { designForceFrom } from '@shared/forces/design-force';
 import type { ExtractedHole, ExtractedMember, ExtractedModel } from '../ifc/types';
+import { CapacityChecks, type EndChecks } from './capacity-checks';
 
 export interface CheckSettings {
   standard: StandardId;
@@ -89,8 +90,11 @@ function steelSpec(m: ExtractedMember, settings: CheckSettings, warnings: string
   return { spec: { grade: settings.defaultGrade }, fromDefault: true };
 }
 
-/** Checks one extracted member to the project's standard; never throws for bad data, it warns. */
-export function checkExtractedMember(m: ExtractedMember, settings: CheckSettings, boltGrades: Map<string, string>): MemberRecord {
+/**
+ * Checks one extracted member to the project's standard; never throws for bad data, it warns.
+ * `checks` answers ends already checked in this import with the same input.
+ */
+export function checkExtractedMember(m: ExtractedMember, settings: CheckSettings, boltGrades: Map<string, string>, checks: EndChecks = new CapacityChecks()): MemberRecord {
   const warnings: string[] = [];
   const ends = endsOf(m, warnings);
   const forces = [
@@ -121,7 +125,7 @@ export function checkExtractedMember(m: ExtractedMember, settings: CheckSettings
         force,
       };
       try {
-        const result = checkMemberRaw(input);
+        const result = checks.check(input);
         endDetails.push({ ...(end ?? { end: 'start', holes: [], boltDiameter: null, boltGroupGlobalId: null }), boltGrade: input.bolts?.grade ?? null, designCapacity: result.designCapacity, governing: result.governing });
         if (!best || result.designCapacity < best.result.designCapacity) best = { result, input, end: index };
       } catch (err) {
@@ -202,12 +206,12 @@ function steelCandidates(model: ExtractedModel): ExtractedMember[] {
 const boltGradesOf = (model: ExtractedModel) => new Map(model.boltGroups.filter((b) => b.grade).map((b) => [b.globalId, b.grade!]));
 
 /** Checks every steel candidate of a model. */
-export function checkModel(model: ExtractedModel, settings: CheckSettings, onProgress?: (fraction: number) => void): MemberRecord[] {
+export function checkModel(model: ExtractedModel, settings: CheckSettings, onProgress?: (fraction: number) => void, checks: EndChecks = new CapacityChecks()): MemberRecord[] {
   const boltGrades = boltGradesOf(model);
   const candidates = steelCandidates(model);
   const records: MemberRecord[] = [];
   candidates.forEach((m, i) => {
-    records.push(checkExtractedMember(m, settings, boltGrades));
+    records.push(checkExtractedMember(m, settings, boltGrades, checks));
     if (onProgress && i % 250 === 0) onProgress(i / candidates.length);
   });
   return records;
@@ -223,11 +227,12 @@ export async function checkModelInSlices(
   settings: CheckSettings,
   size: number,
   onSlice: (records: MemberRecord[], fraction: number) => Promise<void> | void,
+  checks: EndChecks = new CapacityChecks(),
 ): Promise<void> {
   const boltGrades = boltGradesOf(model);
   const candidates = steelCandidates(model);
   for (let from = 0; from < candidates.length; from += size) {
-    const slice = candidates.slice(from, from + size).map((m) => checkExtractedMember(m, settings, boltGrades));
+    const slice = candidates.slice(from, from + size).map((m) => checkExtractedMember(m, settings, boltGrades, checks));
     await onSlice(slice, Math.min(1, (from + size) / candidates.length));
   }
 }

@@ -1,4 +1,5 @@
 import type { RevisionSummary } from '@shared/api/models';
+import { CapacityChecks } from './capacity-checks';
 import { checkModelInSlices } from './check-members';
 import { SLICE_SIZE, SLICES_IN_FLIGHT, toStorable, type SliceMessage, type SliceTaken } from './member-slices';
 import { guardedImport, readForChecks, type ImportTask } from './run-import-task';
@@ -29,6 +30,7 @@ export async function runImportTaskForStore(task: ImportTask): Promise<StreamedI
       inFlight--;
       wake?.();
     });
+    const checks = new CapacityChecks();
     await checkModelInSlices(model, settings, SLICE_SIZE, async (records, fraction) => {
       addToTally(tally, records);
       port.postMessage({ members: records.map(toStorable) } satisfies SliceMessage);
@@ -38,10 +40,13 @@ export async function runImportTaskForStore(task: ImportTask): Promise<StreamedI
       while (inFlight >= SLICES_IN_FLIGHT) await new Promise<void>((resolve) => (wake = resolve));
       waitedMs += performance.now() - t;
       wake = null;
-    });
+    }, checks);
     port.postMessage({ end: true, count: tally.candidates } satisfies SliceMessage);
     timings.checkMs = performance.now() - t0;
     timings.storeWaitMs = waitedMs;
+    // How often an end's input repeated one already checked (the engine ran for `endsChecked`).
+    timings.endsChecked = checks.counts.checked;
+    timings.endsReused = checks.counts.reused;
     const summary = summarise(model, tally, timings);
     // The 3D view's geometry is built afterwards (run-geometry-task.ts), so it never holds results back.
     summary.geometry = 'pending';

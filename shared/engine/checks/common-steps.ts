@@ -25,13 +25,10 @@ export function areaSteps(m: PreparedMember, rec: Recorder, clause: string): num
 /** Assemble the common result: capacity = smallest mode (N), utilisation = force / capacity. */
 export function finish(standard: string, m: PreparedMember, rec: Recorder, An: number): CheckResult {
   const governing = rec.modes.reduce((a, b) => (b.capacity < a.capacity ? b : a));
-  const force = m.input.force;
-  const utilisation = force !== undefined && force !== null && force > 0 ? force / governing.capacity : null;
-  if (force !== undefined && force !== null && force <= 0) rec.warn('Design force is not tensile (≤ 0): utilisation not computed; compression is outside this tool.');
-  return {
+  return withForce({
     standard,
     designCapacity: governing.capacity,
-    utilisation,
+    utilisation: null,
     governing: governing.name,
     modes: rec.modes,
     trace: rec.trace,
@@ -40,7 +37,21 @@ export function finish(standard: string, m: PreparedMember, rec: Recorder, An: n
     grossArea: m.Ag,
     netArea: An,
     net: m.net,
-  };
+  }, m.input.force);
+}
+
+const NOT_TENSILE = 'Design force is not tensile (≤ 0): utilisation not computed; compression is outside this tool.';
+
+/**
+ * A result checked without a force, given one (N, tension positive): utilisation =
+ * force / designCapacity for a positive force, null otherwise, with a warning for a force
+ * ≤ 0. Nothing else in a check depends on the force, so a capacity result can serve every
+ * member with the same input but its force. Returns a new object; `capacity` is not changed.
+ */
+export function withForce(capacity: CheckResult, force: number | null | undefined): CheckResult {
+  const utilisation = force !== undefined && force !== null && force > 0 ? force / capacity.designCapacity : null;
+  const warn = force !== undefined && force !== null && force <= 0 && !capacity.warnings.includes(NOT_TENSILE);
+  return { ...capacity, utilisation, warnings: warn ? [...capacity.warnings, NOT_TENSILE] : capacity.warnings };
 }
 
 /**
