@@ -1,4 +1,5 @@
 import type { MemberRecord } from './check-members';
+import { resultJson } from './result-json';
 
 /**
  * A checked member as the store writes it: the sheet's detail and the engine's result
@@ -9,7 +10,7 @@ import type { MemberRecord } from './check-members';
 export type StorableMember = Omit<MemberRecord, 'detail' | 'result'> & { detailJson: string; resultJson: string | null };
 
 export function toStorable({ detail, result, ...rest }: MemberRecord): StorableMember {
-  return { ...rest, detailJson: JSON.stringify(detail), resultJson: result ? JSON.stringify(result) : null };
+  return { ...rest, detailJson: JSON.stringify(detail), resultJson: result ? resultJson(result) : null };
 }
 
 /** Members per slice handed to the request thread (about 6 MB of JSON at 1,000). */
