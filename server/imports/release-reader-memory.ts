@@ -1,12 +1,13 @@
 import v8 from 'node:v8';
 import vm from 'node:vm';
-import { releaseIfcApi } from '../ifc/ifc-api';
+import { getIfcApi, releaseIfcApi } from '../ifc/ifc-api';
 
 /** Files from this size up leave web-ifc's memory large enough to be worth giving back. */
 export const RELEASE_FROM_BYTES = 32 * 1024 * 1024;
 
 /**
- * Called once a model is extracted, before its members are checked. When web-ifc held the model
+ * Called once a model is extracted, before its members are checked, and after its display
+ * geometry is built (which always opens the model in this thread). When web-ifc held the model
  * in this thread (files read the usual way, or a line only web-ifc could read), its wasm memory
  * has grown to hold it and would stay that size through the checks and every later import;
  * after a large file the instance is dropped, so that memory goes with the next full collection
@@ -37,4 +38,28 @@ function fullCollection(): void {
     collect = vm.runInNewContext('gc') as () => void;
   }
   collect();
+}
+
+/**
+ * The same after a display-geometry build, waiting until the instance is really gone: the
+ * meshes web-ifc handed over hold it until their finalisers have run, and each round of
+ * finalisers needs a collection and a turn of the event loop (four rounds after the demo
+ * model). Collects at most `rounds` times; returns whether the instance went.
+ */
+export async function releaseAfterGeometry(fileBytes: number, rounds = 10): Promise<boolean> {
+  if (fileBytes < RELEASE_FROM_BYTES) return false;
+  const gone = await watchInstance();
+  releaseIfcApi();
+  for (let i = 0; i < rounds && !gone.done; i++) {
+    fullCollection();
+    await new Promise((resolve) => setTimeout(resolve, 0));
+  }
+  return gone.done;
+}
+
+/** A flag set once this thread's current web-ifc instance has been collected (the registry kept beside it, so it lives as long). */
+async function watchInstance(): Promise<{ done: boolean; registry: FinalizationRegistry<null> }> {
+  const gone = { done: false, registry: new FinalizationRegistry<null>(() => (gone.done = true)) };
+  gone.registry.register(await getIfcApi(), null);
+  return gone;
 }

@@ -2,6 +2,7 @@ import { gzipSync } from 'node:zlib';
 import { transferableSymbol, valueSymbol, move } from 'piscina';
 import { buildDisplayGeometry } from '../ifc/display-geometry';
 import { readUploadBytes } from './read-upload-bytes';
+import { releaseAfterGeometry } from './release-reader-memory';
 
 export interface GeometryTask {
   job: 'geometry';
@@ -26,10 +27,22 @@ export interface GeometryOutcome {
  * after the revision's results are stored, so a slow geometry kernel never holds them back.
  */
 export async function runGeometryTask(task: GeometryTask): Promise<GeometryOutcome> {
+  const read = { fileBytes: 0 };
+  try {
+    return await buildOutcome(task, read);
+  } finally {
+    // web-ifc's wasm memory grew to hold the model for its meshes and never shrinks: after a
+    // large file the worker would keep it between imports.
+    await releaseAfterGeometry(read.fileBytes);
+  }
+}
+
+async function buildOutcome(task: GeometryTask, read: { fileBytes: number }): Promise<GeometryOutcome> {
   const started = performance.now();
   let outcome: GeometryOutcome;
   try {
     const bytes = await readUploadBytes(task.filePath, task.kind, task.inflateLimitBytes);
+    read.fileBytes = bytes.length;
     const built = await buildDisplayGeometry(bytes, { timeBudgetMs: task.timeBudgetMs });
     const problem = built.stats.skipped ? `partial: ${built.stats.skipped} of ${built.stats.elements} elements left out after ${Math.round(task.timeBudgetMs / 1000)} s` : null;
     const gzipped = built.bytes ? gzipSync(built.bytes) : null;

@@ -1,12 +1,14 @@
 // After a large model is extracted, the worker drops its web-ifc instance so the wasm memory
 // that held the model can be collected before the checks (server/imports/release-reader-memory.ts).
 import { describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { getIfcApi } from '../../server/ifc/ifc-api';
 import { readIfcModel } from '../../server/ifc/read-model';
 import { RELEASE_FROM_BYTES, releaseReaderMemory } from '../../server/imports/release-reader-memory';
+import { runGeometryTask } from '../../server/imports/run-geometry-task';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const SAMPLE = new Uint8Array(readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc')));
@@ -30,4 +32,27 @@ describe('web-ifc memory after a large model', () => {
     const again = await readIfcModel(SAMPLE);
     expect(again.members.map((m) => m.globalId)).toEqual(extracted.members.map((m) => m.globalId));
   });
+});
+
+describe('web-ifc memory after the display geometry of a large file', () => {
+  it('drops the instance once the geometry is built, and it is collected', async () => {
+    // The sample followed by blanks to the size from which memory is given back: web-ifc reads
+    // past them, and the geometry is the sample's.
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'gl-geometry-release-'));
+    const file = path.join(dir, 'padded.ifc');
+    writeFileSync(file, Buffer.concat([Buffer.from(SAMPLE), Buffer.alloc(RELEASE_FROM_BYTES, 0x20)]));
+    try {
+      let collected = false;
+      const registry = new FinalizationRegistry<null>(() => (collected = true));
+      registry.register(await getIfcApi(), null);
+      const outcome = await runGeometryTask({ job: 'geometry', filePath: file, kind: 'ifc', inflateLimitBytes: 1e9, timeBudgetMs: 60_000 });
+      expect(outcome.problem).toBeNull();
+      expect(outcome.geometry?.length).toBeGreaterThan(0);
+      // No collection of our own: the task's are the ones that must have freed it.
+      for (let i = 0; i < 5 && !collected; i++) await new Promise((resolve) => setTimeout(resolve, 0));
+      expect(collected).toBe(true);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  }, 60_000);
 });
