@@ -22,7 +22,7 @@ export const mariadbForSequelize = {
 };
 
 /** The same result with `meta` as an ordinary (deletable, not enumerable) property. */
-export function withDeletableMeta<T>(result: T): T {
+function withDeletableMeta<T>(result: T): T {
   if (!Array.isArray(result) || !Object.prototype.hasOwnProperty.call(result, 'meta')) return result;
   const copy = result.slice() as unknown[] & { meta?: unknown };
   Object.defineProperty(copy, 'meta', { value: (result as { meta?: unknown }).meta, writable: true, configurable: true, enumerable: false });
