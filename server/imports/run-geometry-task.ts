@@ -32,8 +32,10 @@ export async function runGeometryTask(task: GeometryTask): Promise<GeometryOutco
     return await buildOutcome(task, read);
   } finally {
     // web-ifc's wasm memory grew to hold the model for its meshes and never shrinks: after a
-    // large file the worker would keep it between imports.
-    await releaseAfterGeometry(read.fileBytes);
+    // large file the worker would keep it between imports. Not awaited: the view's file goes to
+    // the request thread now, and the collections run after it (the instance is dropped before
+    // this thread can take another task).
+    void releaseAfterGeometry(read.fileBytes).catch(() => {});
   }
 }
 

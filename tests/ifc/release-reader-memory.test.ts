@@ -48,8 +48,8 @@ describe('web-ifc memory after the display geometry of a large file', () => {
       const outcome = await runGeometryTask({ job: 'geometry', filePath: file, kind: 'ifc', inflateLimitBytes: 1e9, timeBudgetMs: 60_000 });
       expect(outcome.problem).toBeNull();
       expect(outcome.geometry?.length).toBeGreaterThan(0);
-      // No collection of our own: the task's are the ones that must have freed it.
-      for (let i = 0; i < 5 && !collected; i++) await new Promise((resolve) => setTimeout(resolve, 0));
+      // No collection of our own: the task's, which run just after it answers, must free it.
+      for (let i = 0; i < 20 && !collected; i++) await new Promise((resolve) => setTimeout(resolve, 0));
       expect(collected).toBe(true);
     } finally {
       rmSync(dir, { recursive: true, force: true });
