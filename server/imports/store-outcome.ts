@@ -48,8 +48,13 @@ export async function storeStreamed(
   // No transaction is held open while the worker is still reading the model.
   const first = await iterator.next();
   return sequelize.transaction(async (transaction) => {
-    // A retried job may have left nothing (writes are atomic), but be sure.
-    await MemberModel.destroy({ where: { revisionId }, transaction });
+    // A retried job may have left nothing (writes are atomic), but be sure. Look before deleting:
+    // a DELETE locks the index gap where this revision's rows would go even when there are none,
+    // and two imports storing at once (two app processes) then deadlocked on their inserts into
+    // that gap. A plain read locks nothing.
+    if (await MemberModel.findOne({ where: { revisionId }, attributes: ['id'], transaction })) {
+      await MemberModel.destroy({ where: { revisionId }, transaction });
+    }
     // Checking the members' key to their revision would hold a shared lock on the revision's
     // row until commit, and the job's progress and heartbeat updates of that row would wait
     // (holding pool connections) for as long as slices keep coming. The revision is the one
