@@ -23,12 +23,18 @@ describe('web-ifc memory after a large model', () => {
 
   it('drops the instance after a large file, collects it, and reads the next model with a new one', async () => {
     const extracted = await readIfcModel(SAMPLE);
-    const old = new WeakRef(await getIfcApi());
-    await nextTurn();
+    let collected = false;
+    const registry = new FinalizationRegistry<null>(() => (collected = true));
+    registry.register(await getIfcApi(), null);
     expect(releaseReaderMemory(RELEASE_FROM_BYTES)).toBe(true);
-    await nextTurn();
-    // Collected already: nothing else holds the instance, and with it its wasm memory.
-    expect(old.deref()).toBeUndefined();
+    // Usually gone with that one collection; objects web-ifc handed out earlier can hold it until
+    // their own finalisers have run (seen once on a loaded machine), so later collections may
+    // finish the job. Nothing of ours may keep it: without the release it is never collected.
+    for (let i = 0; i < 10 && !collected; i++) {
+      await nextTurn();
+      if (!collected) releaseReaderMemory(RELEASE_FROM_BYTES);
+    }
+    expect(collected).toBe(true);
     const again = await readIfcModel(SAMPLE);
     expect(again.members.map((m) => m.globalId)).toEqual(extracted.members.map((m) => m.globalId));
   });
