@@ -60,7 +60,7 @@ export function modelRoutes(sequelize: Sequelize, config: AppConfig, store: File
         store,
         currentUser(req),
         project,
-        { path: req.file.path, originalName: req.file.originalname, size: req.file.size, sha256: (req.file as Partial<HashedFileInfo>).sha256 },
+        { path: req.file.path, originalName: req.file.originalname, size: req.file.size, sha256: (req.file as Express.Multer.File & HashedFileInfo).sha256 },
         fields.modelName,
       );
       if (!outcome.duplicateOf) onQueued();

@@ -1,6 +1,4 @@
 import { open } from 'node:fs/promises';
-import { createReadStream } from 'node:fs';
-import { createHash } from 'node:crypto';
 import { AppError } from '../../http/errors';
 
 export type UploadKind = 'ifc' | 'ifczip';
@@ -40,16 +38,6 @@ export async function sniffUpload(filePath: string, kind: UploadKind): Promise<v
   } finally {
     await handle.close();
   }
-}
-
-export function sha256OfFile(filePath: string): Promise<string> {
-  return new Promise((resolve, reject) => {
-    const hash = createHash('sha256');
-    createReadStream(filePath)
-      .on('data', (chunk) => hash.update(chunk))
-      .on('error', reject)
-      .on('end', () => resolve(hash.digest('hex')));
-  });
 }
 
 /** A display name safe to store and show: no path parts, no control characters, no bidi or invisible format characters. */

@@ -6,14 +6,14 @@ import { IfcModelModel } from '../../db/models/ifc-model';
 import { RevisionModel } from '../../db/models/revision';
 import type { FileStore } from '../../storage/file-store';
 import { AuditEntryModel } from '../../db/models/audit-entry';
-import { cleanFileName, kindFromName, sha256OfFile, sniffUpload, uploadErrors } from './sniff-upload';
+import { cleanFileName, kindFromName, sniffUpload, uploadErrors } from './sniff-upload';
 
 export interface ReceivedFile {
   path: string;
   originalName: string;
   size: number;
-  /** SHA-256 (hex) worked out while the file was received; read from the file when absent. */
-  sha256?: string;
+  /** SHA-256 (hex), worked out while the file was received (hashingDiskStorage). */
+  sha256: string;
 }
 
 export interface UploadOutcome {
@@ -57,7 +57,7 @@ export async function acceptUpload(
     if (!kind) throw uploadErrors.wrongType();
     if (file.size === 0) throw uploadErrors.empty();
     await sniffUpload(file.path, kind);
-    const sha256 = file.sha256 ?? (await sha256OfFile(file.path));
+    const { sha256 } = file;
     const fileName = cleanFileName(file.originalName);
     const modelName = modelNameFor(fileName, givenModelName);
     const storageKey = `ifc/${sha256}.${kind}`;
