@@ -1,9 +1,7 @@
 // An import checks each distinct member-end input once (server/imports/capacity-checks.ts)
 // and reuses the capacities for every end with the same input, applying each member's own
 // force. The records must be exactly those of running the engine for every end.
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
-import { join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { checkMemberRaw, type MemberCheckInputRaw } from '../../shared/engine';
 import { STANDARDS } from '../../shared/api/projects';
@@ -13,11 +11,10 @@ import { CapacityChecks } from '../../server/imports/capacity-checks.ts';
 import { checkModel, type CheckSettings } from '../../server/imports/check-members.ts';
 import { toStorable } from '../../server/imports/member-slices.ts';
 import { makeSyntheticModel } from '../../scripts/samples/make-samples.ts';
-import { CORPUS_DIR } from './corpus-helpers.ts';
+import { CORPUS_DIR, CORPUS_IFC_FILES, SAMPLE_IFC_FILES } from './corpus-helpers.ts';
 
-const repoRoot = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
-const samples = readdirSync(join(repoRoot, 'samples')).filter((f) => f.endsWith('.ifc')).sort().map((f) => join(repoRoot, 'samples', f));
-const corpus = existsSync(CORPUS_DIR) ? readdirSync(CORPUS_DIR).filter((f) => f.endsWith('.ifc')).sort().map((f) => join(CORPUS_DIR, f)) : [];
+const samples = SAMPLE_IFC_FILES;
+const corpus = CORPUS_IFC_FILES;
 if (!corpus.length) console.warn(`capacity-checks: no corpus at ${CORPUS_DIR}; only the samples and a synthetic model are compared`);
 
 

@@ -3,7 +3,7 @@
  * root) and reads each file once per test file. Where a file is absent the suite says so and
  * registers a single test for that warning path instead of the file's assertions.
  */
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
@@ -12,6 +12,11 @@ import type { ExtractedModel } from '../../server/ifc/types.ts';
 
 const repoRoot = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
 export const CORPUS_DIR = process.env.IFC_CORPUS_DIR ? resolve(process.env.IFC_CORPUS_DIR) : resolve(repoRoot, '../shared/ifc-corpus');
+
+/** Paths of the corpus's .ifc files in name order; none where the corpus is absent (the suites say so). */
+export const CORPUS_IFC_FILES = existsSync(CORPUS_DIR) ? readdirSync(CORPUS_DIR).filter((f) => f.endsWith('.ifc')).sort().map((f) => join(CORPUS_DIR, f)) : [];
+/** Paths of our own sample models (samples/*.ifc) in name order. */
+export const SAMPLE_IFC_FILES = readdirSync(join(repoRoot, 'samples')).filter((f) => f.endsWith('.ifc')).sort().map((f) => join(repoRoot, 'samples', f));
 
 export const FILES = {
   f1: 'ifc2x3_schependomlaan_BERNTS-Staalconstructie_bolts.ifc',

@@ -5,11 +5,11 @@
 // IfcReadError, never another error, never run past the limit, and never leave the reader
 // unable to read a good model correctly afterwards in the same thread.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { basename, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import { CORPUS_DIR } from './corpus-helpers.ts';
+import { CORPUS_DIR, CORPUS_IFC_FILES, SAMPLE_IFC_FILES } from './corpus-helpers.ts';
 import { MUTATIONS, mutate } from '../support/ifc-mutations.ts';
 
 const repoRoot = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
@@ -17,8 +17,8 @@ const GOOD_MODEL = join(repoRoot, 'samples/kestrel-yard-shed.ifc');
 const WORKERS = 2;
 
 // ---------- the files ----------
-const samples = readdirSync(join(repoRoot, 'samples')).filter((f) => f.endsWith('.ifc')).map((f) => join(repoRoot, 'samples', f));
-const corpus = existsSync(CORPUS_DIR) ? readdirSync(CORPUS_DIR).filter((f) => f.endsWith('.ifc')).sort().map((f) => join(CORPUS_DIR, f)) : [];
+const samples = SAMPLE_IFC_FILES;
+const corpus = CORPUS_IFC_FILES;
 if (!corpus.length) console.warn(`IFC corpus not found in ${CORPUS_DIR}; only the samples are fuzzed.`);
 
 /** Large files read slowly: they get the mutations most likely to reach deep into the reader. */

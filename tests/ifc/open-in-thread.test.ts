@@ -1,19 +1,16 @@
 // Large files are opened by web-ifc in a thread of its own while the text is read and classes
 // are listed from the text's index (server/ifc/read-model.ts, readWhileOpening). That way must
 // give exactly the model, or exactly the error, of the usual one (web-ifc opens first, here).
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
-import { join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { readIfcModel } from '../../server/ifc/read-model.ts';
 import type { ReadStats } from '../../server/ifc/types.ts';
 import { makeSyntheticModel } from '../../scripts/samples/make-samples.ts';
 import { MUTATIONS, mutate } from '../support/ifc-mutations.ts';
-import { CORPUS_DIR } from './corpus-helpers.ts';
+import { CORPUS_DIR, CORPUS_IFC_FILES, SAMPLE_IFC_FILES } from './corpus-helpers.ts';
 
-const repoRoot = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
-const samples = readdirSync(join(repoRoot, 'samples')).filter((f) => f.endsWith('.ifc')).sort().map((f) => join(repoRoot, 'samples', f));
-const corpus = existsSync(CORPUS_DIR) ? readdirSync(CORPUS_DIR).filter((f) => f.endsWith('.ifc')).sort().map((f) => join(CORPUS_DIR, f)) : [];
+const samples = SAMPLE_IFC_FILES;
+const corpus = CORPUS_IFC_FILES;
 if (!corpus.length) console.warn(`open-in-thread: no corpus at ${CORPUS_DIR}; only the samples and a synthetic model are compared`);
 
 /** The model as JSON, or the error's id: what a read ends with. */

@@ -2,7 +2,7 @@
 // GetLine would: the same raw arguments line by line, the same numbers for points and
 // directions, and so the same extracted model. Compared here against web-ifc itself on every
 // corpus file, the samples, a synthetic model and a file of awkward STEP spellings.
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
@@ -16,11 +16,11 @@ import { DEFER, StepText } from '../../server/ifc/step-text.ts';
 import { numList, ref, refs } from '../../server/ifc/step-values.ts';
 import type { ReadStats } from '../../server/ifc/types.ts';
 import { makeSyntheticModel } from '../../scripts/samples/make-samples.ts';
-import { CORPUS_DIR } from './corpus-helpers.ts';
+import { CORPUS_IFC_FILES, SAMPLE_IFC_FILES } from './corpus-helpers.ts';
 
 const repoRoot = resolve(fileURLToPath(new URL('.', import.meta.url)), '../..');
-const samples = readdirSync(join(repoRoot, 'samples')).filter((f) => f.endsWith('.ifc')).sort().map((f) => join(repoRoot, 'samples', f));
-const corpus = existsSync(CORPUS_DIR) ? readdirSync(CORPUS_DIR).filter((f) => f.endsWith('.ifc')).sort().map((f) => join(CORPUS_DIR, f)) : [];
+const samples = SAMPLE_IFC_FILES;
+const corpus = CORPUS_IFC_FILES;
 const files: [string, () => Uint8Array | Promise<Uint8Array>][] = [
   ...[...corpus, ...samples].map((f): [string, () => Uint8Array] => [f.split('/').pop()!, () => new Uint8Array(readFileSync(f))]),
   ['synthetic model of 30 members', () => makeSyntheticModel(30)],
