@@ -23,6 +23,11 @@ export function getIfcApi(): Promise<IfcAPI> {
   return apiPromise;
 }
 
+/** This thread's instance if one was made and not dropped since; null otherwise (none is made). */
+export function currentIfcApi(): Promise<IfcAPI> | null {
+  return apiPromise;
+}
+
 /**
  * Drops this thread's web-ifc instance. Its wasm memory grows to the largest model opened and
  * never shrinks while the instance lives (290 MB after the 154 MB benchmark model); once dropped it goes with the

@@ -1,6 +1,6 @@
 import v8 from 'node:v8';
 import vm from 'node:vm';
-import { getIfcApi, releaseIfcApi } from '../ifc/ifc-api';
+import { currentIfcApi, releaseIfcApi } from '../ifc/ifc-api';
 
 /** Files from this size up leave web-ifc's memory large enough to be worth giving back. */
 export const RELEASE_FROM_BYTES = 32 * 1024 * 1024;
@@ -47,7 +47,9 @@ function fullCollection(): void {
  * model). Collects at most `rounds` times; returns whether the instance went.
  */
 export async function releaseAfterGeometry(fileBytes: number, rounds = 10): Promise<boolean> {
-  if (fileBytes < RELEASE_FROM_BYTES) return false;
+  // No instance: nothing to give back (and none is made just to drop it). The instance is not
+  // kept in a variable here: this frame lives through the collections and would hold it.
+  if (fileBytes < RELEASE_FROM_BYTES || !currentIfcApi()) return false;
   const gone = await watchInstance();
   releaseIfcApi();
   for (let i = 0; i < rounds && !gone.done; i++) {
@@ -57,9 +59,9 @@ export async function releaseAfterGeometry(fileBytes: number, rounds = 10): Prom
   return gone.done;
 }
 
-/** A flag set once this thread's current web-ifc instance has been collected (the registry kept beside it, so it lives as long). */
+/** A flag set once the instance has been collected (the registry kept beside it, so it lives as long). */
 async function watchInstance(): Promise<{ done: boolean; registry: FinalizationRegistry<null> }> {
   const gone = { done: false, registry: new FinalizationRegistry<null>(() => (gone.done = true)) };
-  gone.registry.register(await getIfcApi(), null);
+  gone.registry.register(await currentIfcApi()!, null);
   return gone;
 }
