@@ -46,6 +46,14 @@ describe('web-ifc opening in its own thread', () => {
     }
   });
 
+  it('gives the same model from bytes in shared memory (as the import reads them)', async () => {
+    for (const bytes of [new Uint8Array(readFileSync(samples[0])), await makeSyntheticModel(30)]) {
+      const shared = new Uint8Array(new SharedArrayBuffer(bytes.length));
+      shared.set(bytes);
+      expect(await outcome(shared, true)).toBe(await outcome(bytes, false));
+    }
+  });
+
   it('reads the usual way, with the same result, when web-ifc counts other lines than the text shows', async () => {
     // '.5' (no digit before the point) makes web-ifc lose the next line (see step-text.test.ts).
     const good = new TextDecoder('latin1').decode(readFileSync(samples.find((f) => f.endsWith('kestrel-yard-shed.ifc'))!));

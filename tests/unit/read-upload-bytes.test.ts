@@ -1,0 +1,61 @@
+// The import reads an upload into shared memory so that web-ifc's checking thread reads the
+// same bytes instead of a copy (server/imports/read-upload-bytes.ts, server/ifc/open-check.ts).
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { readUploadBytes } from '../../server/imports/read-upload-bytes.ts';
+import { shareable, startOpenCheck } from '../../server/ifc/open-check.ts';
+import { makeZip } from '../support/make-zip.ts';
+
+const SAMPLE = path.resolve(import.meta.dirname, '../../samples/kestrel-yard-shed.ifc');
+const dir = mkdtempSync(path.join(tmpdir(), 'gaugeline-upload-bytes-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+describe('readUploadBytes', () => {
+  const original = readFileSync(SAMPLE);
+
+  it('reads a plain .ifc into a SharedArrayBuffer when asked, byte for byte', async () => {
+    const bytes = await readUploadBytes(SAMPLE, 'ifc', 1e9, { shared: true });
+    expect(bytes.buffer).toBeInstanceOf(SharedArrayBuffer);
+    expect(Buffer.from(bytes).equals(original)).toBe(true);
+  });
+
+  it('inflates an .ifczip into a SharedArrayBuffer when asked, byte for byte', async () => {
+    const zipPath = path.join(dir, 'model.ifczip');
+    writeFileSync(zipPath, makeZip('model.ifc', original));
+    const bytes = await readUploadBytes(zipPath, 'ifczip', 1e9, { shared: true });
+    expect(bytes.buffer).toBeInstanceOf(SharedArrayBuffer);
+    expect(Buffer.from(bytes).equals(original)).toBe(true);
+  });
+
+  it('keeps plain memory by default', async () => {
+    const bytes = await readUploadBytes(SAMPLE, 'ifc', 1e9);
+    expect(bytes.buffer).not.toBeInstanceOf(SharedArrayBuffer);
+    expect(Buffer.from(bytes).equals(original)).toBe(true);
+  });
+
+  it('reads an empty file as no bytes', async () => {
+    const empty = path.join(dir, 'empty.ifc');
+    writeFileSync(empty, '');
+    expect((await readUploadBytes(empty, 'ifc', 1e9, { shared: true })).length).toBe(0);
+  });
+});
+
+describe('shareable and the checking thread', () => {
+  it('passes shared bytes through and copies others once', () => {
+    const plain = new Uint8Array([1, 2, 3]);
+    const copy = shareable(plain);
+    expect(copy.buffer).toBeInstanceOf(SharedArrayBuffer);
+    expect([...copy]).toEqual([1, 2, 3]);
+    expect(shareable(copy)).toBe(copy);
+  });
+
+  it('web-ifc opens the file from shared memory and counts the same lines either way', async () => {
+    const shared = await readUploadBytes(SAMPLE, 'ifc', 1e9, { shared: true });
+    const fromShared = await startOpenCheck(shared).answer;
+    const fromPlain = await startOpenCheck(new Uint8Array(readFileSync(SAMPLE))).answer;
+    expect(fromShared.ok).toBe(true);
+    expect(fromShared).toEqual(fromPlain);
+  });
+});
