@@ -190,15 +190,41 @@ export async function firstProjectId(url: string, s: Session): Promise<number> {
 }
 
 /** Uploads a file from disk as multipart `file` (streamed from disk, not read into memory). */
+/**
+ * Uploads a file as the browser would (multipart: model name, then the file), streamed from
+ * disk over plain node:http. fetch with a FormData Blob sent 154 MB at about 110 MB/s, the
+ * client's own encoding being the limit; this client is not what the benchmark measures.
+ */
 export async function uploadFile(url: string, s: Session, projectId: number, filePath: string, modelName: string): Promise<{ revisionId: number; status: number }> {
-  const { openAsBlob } = await import('node:fs');
-  const form = new FormData();
-  form.append('modelName', modelName);
-  form.append('file', await openAsBlob(filePath), path.basename(filePath));
-  const res = await fetch(`${url}/api/projects/${projectId}/uploads`, { method: 'POST', headers: { cookie: s.cookie, 'x-csrf-token': s.csrf }, body: form });
-  const body = (await res.json()) as { revision?: { id: number }; message?: string };
-  if (res.status !== 201 && res.status !== 200) throw new Error(`upload failed: ${res.status} ${JSON.stringify(body)}`);
-  return { revisionId: body.revision!.id, status: res.status };
+  const http = await import('node:http');
+  const { createReadStream, statSync } = await import('node:fs');
+  const boundary = `----gaugeline-bench-${randomBytes(12).toString('hex')}`;
+  const head = Buffer.from(
+    `--${boundary}\r\nContent-Disposition: form-data; name="modelName"\r\n\r\n${modelName}\r\n` +
+      `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="${path.basename(filePath)}"\r\nContent-Type: application/octet-stream\r\n\r\n`,
+  );
+  const tail = Buffer.from(`\r\n--${boundary}--\r\n`);
+  const length = head.length + statSync(filePath).size + tail.length;
+  const { status, text } = await new Promise<{ status: number; text: string }>((resolve, reject) => {
+    const req = http.request(`${url}/api/projects/${projectId}/uploads`, {
+      method: 'POST',
+      headers: { cookie: s.cookie, 'x-csrf-token': s.csrf, 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': length },
+    }, (res) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => resolve({ status: res.statusCode ?? 0, text: Buffer.concat(chunks).toString('utf8') }));
+      res.on('error', reject);
+    });
+    req.on('error', reject);
+    req.write(head);
+    const file = createReadStream(filePath, { highWaterMark: 1024 * 1024 });
+    file.on('error', reject);
+    file.on('end', () => req.end(tail));
+    file.pipe(req, { end: false });
+  });
+  const body = JSON.parse(text) as { revision?: { id: number }; message?: string };
+  if (status !== 201 && status !== 200) throw new Error(`upload failed: ${status} ${text}`);
+  return { revisionId: body.revision!.id, status };
 }
 
 export interface RevisionState {
