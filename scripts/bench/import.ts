@@ -100,7 +100,7 @@ async function childDirect(file: string): Promise<void> {
   const { runImportTask } = await import('../../server/imports/run-import-task.ts');
   const { getIfcApi } = await import('../../server/ifc/ifc-api.ts');
   const { storeOutcome } = await import('../../server/imports/store-outcome.ts');
-  const { toStorable } = await import('../../server/imports/member-slices.ts');
+  const { StorableSlices } = await import('../../server/imports/member-slices.ts');
 
   const { sequelize, project, revision } = await benchRevision(file, 'bench-direct');
   await getIfcApi(); // wasm init is paid once per worker, not per import
@@ -122,13 +122,14 @@ async function childDirect(file: string): Promise<void> {
   take();
   if (!outcome.ok) throw new Error(`import failed: ${outcome.failure.message}`);
   let t = performance.now();
-  // The worker serialises each member's detail and result (member-slices.ts) and hands them over
-  // in slices as structured clones; v8.serialize is the same format. Both are counted here, in one piece.
-  const storable = outcome.members.map(toStorable);
+  // The worker serialises each member's detail and its capacity's text once (member-slices.ts) and
+  // hands them over in slices as structured clones; v8.serialize is the same format. Both are
+  // counted here, in one piece; storeOutcome serialises again on its way to the store.
+  const storable = new StorableSlices().of(outcome.members);
   const cloneBytes = serialize({ ...outcome, members: storable }).length;
   const cloneMs = performance.now() - t;
   t = performance.now();
-  const kept = await storeOutcome(sequelize, revision.id, 'bench-direct', 'as4100', outcome.summary, storable);
+  const kept = await storeOutcome(sequelize, revision.id, 'bench-direct', 'as4100', outcome.summary, outcome.members);
   const storeMs = performance.now() - t;
   clearInterval(timer);
   take();
@@ -155,12 +156,11 @@ async function childSeed(file: string, projectId: number): Promise<void> {
   const { checkModel } = await import('../../server/imports/check-members.ts');
   const { addToTally, emptyTally, summarise } = await import('../../server/imports/summarise.ts');
   const { storeOutcome } = await import('../../server/imports/store-outcome.ts');
-  const { toStorable } = await import('../../server/imports/member-slices.ts');
   const { sequelize, project, revision } = await benchRevision(file, 'bench-seed', projectId);
   const t0 = performance.now();
   const extracted = await readIfcModel(await readUploadBytes(file, 'ifc', 1e12));
   const members = checkModel(extracted, { standard: project.standard, defaultGrade: project.defaultGrade });
-  const kept = await storeOutcome(sequelize, revision.id, 'bench-seed', project.standard, summarise(extracted, addToTally(emptyTally(), members), {}), members.map(toStorable));
+  const kept = await storeOutcome(sequelize, revision.id, 'bench-seed', project.standard, summarise(extracted, addToTally(emptyTally(), members), {}), members);
   if (!kept) throw new Error('storeOutcome did not keep the result');
   await sequelize.close();
   report({ revisionId: revision.id, ms: performance.now() - t0 });

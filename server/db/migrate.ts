@@ -5,6 +5,7 @@ import * as m0002 from './migrations/0002-models-and-results';
 import * as m0004 from './migrations/0004-mail-and-tokens';
 import * as m0005 from './migrations/0005-revision-forces-file';
 import * as m0006 from './migrations/0006-revision-results-version';
+import * as m0007 from './migrations/0007-check-capacities';
 
 // Migrations are listed explicitly (not globbed) so that the same list works under
 // tsx, vitest and a bundled build, and the order is reviewed in code.
@@ -14,6 +15,7 @@ const MIGRATIONS = [
   { name: '0004-mail-and-tokens', module: m0004 },
   { name: '0005-revision-forces-file', module: m0005 },
   { name: '0006-revision-results-version', module: m0006 },
+  { name: '0007-check-capacities', module: m0007 },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

@@ -1,5 +1,5 @@
 import type { MessagePort } from 'node:worker_threads';
-import type { SliceMessage, SliceTaken, StorableMember } from './member-slices';
+import type { SliceMessage, SliceTaken, StorableSlice } from './member-slices';
 
 /**
  * The request thread's end of a worker's member slices (SliceMessage on the task's port):
@@ -8,8 +8,8 @@ import type { SliceMessage, SliceTaken, StorableMember } from './member-slices';
  * `fail` ends the iteration with an error (the task failed or its worker was lost), and so
  * does the port closing before the worker said it had sent everything.
  */
-export class MemberSliceStream implements AsyncIterable<StorableMember[]> {
-  private readonly queue: StorableMember[][] = [];
+export class MemberSliceStream implements AsyncIterable<StorableSlice> {
+  private readonly queue: StorableSlice[] = [];
   private ended = false;
   private failure: unknown = null;
   private wake: (() => void) | null = null;
@@ -22,7 +22,7 @@ export class MemberSliceStream implements AsyncIterable<StorableMember[]> {
   /** Takes one message of the port; false when it is not about slices (progress, for example). */
   take(message: unknown): boolean {
     const m = message as Partial<SliceMessage> | null;
-    if (m && Array.isArray((m as { members?: unknown }).members)) this.queue.push((m as { members: StorableMember[] }).members);
+    if (m && Array.isArray((m as { members?: unknown }).members)) this.queue.push({ members: (m as StorableSlice).members, capacities: (m as StorableSlice).capacities ?? [] });
     else if (m && (m as { end?: unknown }).end === true) this.ended = true;
     else return false;
     this.notify();
@@ -42,7 +42,7 @@ export class MemberSliceStream implements AsyncIterable<StorableMember[]> {
     wake?.();
   }
 
-  async *[Symbol.asyncIterator](): AsyncIterator<StorableMember[]> {
+  async *[Symbol.asyncIterator](): AsyncIterator<StorableSlice> {
     for (;;) {
       if (this.failure) throw this.failure;
       const slice = this.queue.shift();

@@ -4,7 +4,8 @@ import { MemberModel } from '../db/models/member';
 import { RevisionModel } from '../db/models/revision';
 import { ENGINE_VERSION } from './engine-version';
 import { batchInsert } from '../db/batch-insert';
-import { SLICE_SIZE, type StorableMember } from './member-slices';
+import type { MemberRecord } from './check-members';
+import { SLICE_SIZE, StorableSlices, type StorableSlice } from './member-slices';
 
 const MEMBER_COLUMNS = [
   'revision_id', 'global_id', 'name', 'tag', 'ifc_class', 'storey', 'assembly', 'profile_name', 'grade_name',
@@ -22,10 +23,11 @@ export async function storeOutcome(
   owner: string,
   standard: string,
   summary: RevisionSummary,
-  members: StorableMember[],
+  members: MemberRecord[],
 ): Promise<boolean> {
   async function* slices() {
-    for (let i = 0; i < members.length; i += SLICE_SIZE) yield members.slice(i, i + SLICE_SIZE);
+    const storable = new StorableSlices();
+    for (let i = 0; i < members.length; i += SLICE_SIZE) yield storable.of(members.slice(i, i + SLICE_SIZE));
   }
   return storeStreamed(sequelize, revisionId, owner, standard, slices(), async () => summary);
 }
@@ -41,7 +43,7 @@ export async function storeStreamed(
   revisionId: number,
   owner: string,
   standard: string,
-  slices: AsyncIterable<StorableMember[]>,
+  slices: AsyncIterable<StorableSlice>,
   summary: () => Promise<RevisionSummary>,
 ): Promise<boolean> {
   const iterator = slices[Symbol.asyncIterator]();
@@ -64,9 +66,9 @@ export async function storeStreamed(
     // worker's JSON.stringify output, and validating them again took about half of MariaDB's
     // CPU for these inserts (20,000 members: 1.6–2.0 s → 0.9–1.1 s). Off for them too.
     await sequelize.query('SET SESSION foreign_key_checks = 0, check_constraint_checks = 0', { transaction });
-    let lastId = 0;
+    const written: Written = { lastMemberId: 0, lastCapacityId: 0, capacityIds: new Map() };
     try {
-      for (let slice = first; !slice.done; slice = await iterator.next()) lastId = await writeSlice(transaction, revisionId, standard, slice.value, lastId);
+      for (let slice = first; !slice.done; slice = await iterator.next()) await writeSlice(transaction, revisionId, standard, slice.value, written);
     } finally {
       await sequelize.query('SET SESSION foreign_key_checks = 1, check_constraint_checks = 1', { transaction });
     }
@@ -86,31 +88,55 @@ export async function storeStreamed(
   });
 }
 
-/** Members of one slice, then their forces and results (by the ids just given). Returns the highest member id so far. */
-async function writeSlice(transaction: Transaction, revisionId: number, standard: string, members: StorableMember[], lastId: number): Promise<number> {
+/** What the slices written so far left: the highest ids, and each capacity's row by its number in the import. */
+interface Written {
+  lastMemberId: number;
+  lastCapacityId: number;
+  capacityIds: Map<number, number>;
+}
+
+/** A slice's capacities and members, then the members' forces and results (by the ids just given). */
+async function writeSlice(transaction: Transaction, revisionId: number, standard: string, { members, capacities }: StorableSlice, written: Written): Promise<void> {
   const now = new Date();
-  // The driver's bulk protocol: no model instance per row and no SQL text to escape.
-  await batchInsert(transaction, 'members', MEMBER_COLUMNS, members.map((m) => [
-    revisionId, m.globalId, m.name?.slice(0, 255) ?? null, m.tag?.slice(0, 120) ?? null, m.ifcClass,
-    m.storey?.slice(0, 160) ?? null, m.assembly?.slice(0, 160) ?? null, m.profileName?.slice(0, 120) ?? null, m.gradeName?.slice(0, 120) ?? null,
-    m.lengthMm, m.isTension, 'auto', m.holeCount, m.designForceN, m.forceSource, m.netAreaMm2, m.designCapacityN, m.utilisation,
-    m.governing, m.band, m.warningCount, m.detailJson, now, now,
-  ]));
-  // This transaction is the only writer of the revision's members, so the new rows are those above the last id seen.
-  const rows = await MemberModel.sequelize!.query<{ id: number; globalId: string }>(
-    'SELECT id, global_id AS globalId FROM members WHERE revision_id = ? AND id > ?',
-    { replacements: [revisionId, lastId], type: QueryTypes.SELECT, transaction },
-  );
-  const idOf = new Map(rows.map((r) => [r.globalId, r.id]));
-  // Both go to the connection at once: the driver sends the second while MariaDB writes the
-  // first, so this thread prepares the results' 4 MB while MariaDB stores the forces.
+  const sequelize = MemberModel.sequelize!;
+  // This transaction is the only writer of the revision's members and capacities, so the new
+  // rows are those above the last ids seen. Both inserts go to the connection at once.
+  const [memberRows, capacityRows] = await Promise.all([
+    // The driver's bulk protocol: no model instance per row and no SQL text to escape.
+    batchInsert(transaction, 'members', MEMBER_COLUMNS, members.map((m) => [
+      revisionId, m.globalId, m.name?.slice(0, 255) ?? null, m.tag?.slice(0, 120) ?? null, m.ifcClass,
+      m.storey?.slice(0, 160) ?? null, m.assembly?.slice(0, 160) ?? null, m.profileName?.slice(0, 120) ?? null, m.gradeName?.slice(0, 120) ?? null,
+      m.lengthMm, m.isTension, 'auto', m.holeCount, m.designForceN, m.forceSource, m.netAreaMm2, m.designCapacityN, m.utilisation,
+      m.governing, m.band, m.warningCount, m.detailJson, now, now,
+    ])).then(() => sequelize.query<{ id: number; globalId: string }>(
+      'SELECT id, global_id AS globalId FROM members WHERE revision_id = ? AND id > ?',
+      { replacements: [revisionId, written.lastMemberId], type: QueryTypes.SELECT, transaction },
+    )),
+    capacities.length
+      ? batchInsert(transaction, 'check_capacities', ['revision_id', 'import_key', 'body', 'created_at'], capacities.map((c) => [revisionId, c.key, c.bodyJson, now]))
+        .then(() => sequelize.query<{ id: number; importKey: number }>(
+          'SELECT id, import_key AS importKey FROM check_capacities WHERE revision_id = ? AND id > ?',
+          { replacements: [revisionId, written.lastCapacityId], type: QueryTypes.SELECT, transaction },
+        ))
+      : Promise.resolve([]),
+  ]);
+  for (const r of capacityRows) {
+    written.capacityIds.set(r.importKey, r.id);
+    written.lastCapacityId = Math.max(written.lastCapacityId, r.id);
+  }
+  const idOf = new Map(memberRows.map((r) => [r.globalId, r.id]));
+  written.lastMemberId = memberRows.reduce((max, r) => Math.max(max, r.id), written.lastMemberId);
+  const capacityId = (key: number) => {
+    const id = written.capacityIds.get(key);
+    if (id === undefined) throw new Error(`the import's capacity ${key} was referred to before it was handed over`);
+    return id;
+  };
   await Promise.all([
     batchInsert(transaction, 'member_forces', ['member_id', 'load_case', 'axial_n', 'source', 'created_at'],
       members.flatMap((m) => m.forces.map((f) => [idOf.get(m.globalId)!, f.loadCase.slice(0, 120), f.axialN, f.source, now]))),
-    batchInsert(transaction, 'check_results', ['member_id', 'standard', 'engine_version', 'result', 'created_at'],
-      members.filter((m) => m.resultJson).map((m) => [idOf.get(m.globalId)!, standard, ENGINE_VERSION, m.resultJson, now])),
+    batchInsert(transaction, 'check_results', ['member_id', 'standard', 'engine_version', 'capacity_id', 'created_at'],
+      members.filter((m) => m.capacityKey !== null).map((m) => [idOf.get(m.globalId)!, standard, ENGINE_VERSION, capacityId(m.capacityKey!), now])),
   ]);
-  return rows.reduce((max, r) => Math.max(max, r.id), lastId);
 }
 
 class LostClaimError extends Error {}

@@ -1,7 +1,7 @@
 import type { RevisionSummary } from '@shared/api/models';
 import { CapacityChecks } from './capacity-checks';
 import { checkModelInSlices } from './check-members';
-import { SLICE_SIZE, SLICES_IN_FLIGHT, toStorable, type SliceMessage, type SliceTaken } from './member-slices';
+import { SLICE_SIZE, SLICES_IN_FLIGHT, StorableSlices, type SliceMessage, type SliceTaken } from './member-slices';
 import { guardedImport, readForChecks, type ImportTask } from './run-import-task';
 import type { FailureData } from './import-failure';
 import { addToTally, emptyTally, summarise } from './summarise';
@@ -31,9 +31,10 @@ export async function runImportTaskForStore(task: ImportTask): Promise<StreamedI
       wake?.();
     });
     const checks = new CapacityChecks();
+    const storable = new StorableSlices();
     await checkModelInSlices(model, settings, SLICE_SIZE, async (records, fraction) => {
       addToTally(tally, records);
-      port.postMessage({ members: records.map(toStorable) } satisfies SliceMessage);
+      port.postMessage(storable.of(records) satisfies SliceMessage);
       inFlight++;
       post('checking', fraction);
       const t = performance.now();

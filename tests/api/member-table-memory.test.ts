@@ -9,6 +9,8 @@ import { memberQuerySchema, MEMBER_SORT_KEYS, type MemberQuery } from '../../sha
 import { MemberModel } from '../../server/db/models/member';
 import { MemberForceModel } from '../../server/db/models/member-force';
 import { CheckResultModel } from '../../server/db/models/check-result';
+import { checkMemberRaw, type MemberCheckInputRaw } from '../../shared/engine';
+import type { MemberDetail } from '../../shared/api/member-detail';
 import { memberOrder, memberWhere } from '../../server/features/members/member-query';
 import { presentMemberRow } from '../../server/features/members/member-presenter';
 import { startTestApp, type TestApp } from '../support/test-app';
@@ -83,7 +85,10 @@ describe('member table held in memory', () => {
       expect(sheet.member).toEqual(presentMemberRow(member));
       expect(sheet.detail).toEqual(member.detail);
       expect(sheet.forces).toEqual(forces.map((f) => ({ loadCase: f.loadCase, axialN: f.axialN, source: f.source })));
-      expect(sheet.result).toEqual(result?.result ?? null);
+      // The stored capacity with the member's force is what the engine answers for the member's stored input.
+      const input = (member.detail as MemberDetail).checkInput;
+      expect(sheet.result).toEqual(input && result ? JSON.parse(JSON.stringify(checkMemberRaw(input as MemberCheckInputRaw))) : null);
+      expect(input && result ? (input as MemberCheckInputRaw).force : null).toBe(input && result ? member.designForceN : null);
       expect(sheet.engineVersion).toBe(result?.engineVersion ?? null);
     }
     expect((await engineer.call('get', `${base}/members/${'A'.repeat(22)}`)).status).toBe(404);

@@ -97,6 +97,7 @@ async function projectState(projectId: number): Promise<unknown> {
     members: await dbQuery(db, 'SELECT * FROM members WHERE revision_id IN (?) ORDER BY id', [inRevs]),
     results: await dbQuery(db, 'SELECT c.* FROM check_results c JOIN members m ON m.id = c.member_id WHERE m.revision_id IN (?) ORDER BY c.id', [inRevs]),
     forces: await dbQuery(db, 'SELECT f.* FROM member_forces f JOIN members m ON m.id = f.member_id WHERE m.revision_id IN (?) ORDER BY f.id', [inRevs]),
+    capacities: await dbQuery(db, 'SELECT * FROM check_capacities WHERE revision_id IN (?) ORDER BY id', [inRevs]),
     // A refused export or override leaves no entry in the other project's log.
     log: await dbQuery(db, 'SELECT * FROM audit_entries WHERE project_id = ? ORDER BY id', [projectId]),
   };

@@ -3,13 +3,13 @@
 // force. The records must be exactly those of running the engine for every end.
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { checkMemberRaw, type MemberCheckInputRaw } from '../../shared/engine';
+import { checkMemberRaw, withForce, type CheckResult, type MemberCheckInputRaw } from '../../shared/engine';
 import { STANDARDS } from '../../shared/api/projects';
 import { readIfcModel } from '../../server/ifc/read-model.ts';
 import type { ExtractedModel } from '../../server/ifc/types.ts';
 import { CapacityChecks } from '../../server/imports/capacity-checks.ts';
 import { checkModel, type CheckSettings } from '../../server/imports/check-members.ts';
-import { toStorable } from '../../server/imports/member-slices.ts';
+import { StorableSlices } from '../../server/imports/member-slices.ts';
 import { makeSyntheticModel } from '../../scripts/samples/make-samples.ts';
 import { CORPUS_DIR, CORPUS_IFC_FILES, SAMPLE_IFC_FILES } from './corpus-helpers.ts';
 
@@ -39,8 +39,12 @@ describe('checking each distinct member end once', () => {
           const checks = new CapacityChecks();
           const records = checkModel(model, settings, undefined, checks);
           expect(JSON.stringify(records)).toBe(JSON.stringify(checkModel(model, settings, undefined, { check: checkMemberRaw })));
-          // Their stored text, written from pieces where results share capacities, is JSON.stringify's.
-          expect(records.map((r) => toStorable(r).resultJson)).toEqual(records.map((r) => (r.result ? JSON.stringify(r.result) : null)));
+          // Stored as capacities, each written once, and read back with the member's force: the same text.
+          const slice = new StorableSlices().of(records);
+          const bodies = new Map(slice.capacities.map((c) => [c.key, c.bodyJson]));
+          const readBack = slice.members.map((m) => (m.capacityKey === null ? null : JSON.stringify(withForce(JSON.parse(bodies.get(m.capacityKey)!) as CheckResult, m.designForceN))));
+          expect(readBack).toEqual(records.map((r) => (r.result ? JSON.stringify(r.result) : null)));
+          expect(slice.capacities.length).toBeLessThanOrEqual(checks.counts.checked);
           reused += checks.counts.reused;
         }
       }

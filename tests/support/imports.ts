@@ -46,13 +46,14 @@ export function filesUnder(dir: string): string[] {
   return out.sort();
 }
 
-/** Every stored row of one revision (the revision, its members, results and forces) as JSON, for byte-for-byte comparisons. */
+/** Every stored row of one revision (the revision, its members, results, capacities and forces) as JSON, for byte-for-byte comparisons. */
 export async function revisionRowsJson(dbName: string, revisionId: number): Promise<string> {
   return JSON.stringify({
     revision: await dbQuery(dbName, 'SELECT * FROM revisions WHERE id = ?', [revisionId]),
     members: await dbQuery(dbName, 'SELECT * FROM members WHERE revision_id = ? ORDER BY id', [revisionId]),
     results: await dbQuery(dbName, 'SELECT c.* FROM check_results c JOIN members m ON m.id = c.member_id WHERE m.revision_id = ? ORDER BY c.id', [revisionId]),
     forces: await dbQuery(dbName, 'SELECT f.* FROM member_forces f JOIN members m ON m.id = f.member_id WHERE m.revision_id = ? ORDER BY f.id', [revisionId]),
+    capacities: await dbQuery(dbName, 'SELECT * FROM check_capacities WHERE revision_id = ? ORDER BY id', [revisionId]),
   });
 }
 

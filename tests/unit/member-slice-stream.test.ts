@@ -17,7 +17,7 @@ function streamOn(): { stream: MemberSliceStream; worker: MessagePort; acks: () 
 
 async function collect(stream: MemberSliceStream): Promise<string[][]> {
   const out: string[][] = [];
-  for await (const s of stream) out.push(s.map((m) => m.globalId));
+  for await (const s of stream) out.push(s.members.map((m) => m.globalId));
   return out;
 }
 
@@ -26,10 +26,12 @@ describe('member slice stream', () => {
     const { stream, worker, acks } = streamOn();
     const slices = stream[Symbol.asyncIterator]();
     worker.postMessage({ status: 'checking', progress: 0.5 });
-    worker.postMessage({ members: slice('a', 'b') });
-    worker.postMessage({ members: slice('c') });
-    expect((await slices.next()).value?.map((m: StorableMember) => m.globalId)).toEqual(['a', 'b']);
-    expect((await slices.next()).value?.map((m: StorableMember) => m.globalId)).toEqual(['c']);
+    worker.postMessage({ members: slice('a', 'b'), capacities: [{ key: 0, bodyJson: '{"k":0}' }] });
+    worker.postMessage({ members: slice('c'), capacities: [] });
+    const first = (await slices.next()).value;
+    expect(first?.members.map((m: StorableMember) => m.globalId)).toEqual(['a', 'b']);
+    expect(first?.capacities).toEqual([{ key: 0, bodyJson: '{"k":0}' }]);
+    expect((await slices.next()).value?.members.map((m: StorableMember) => m.globalId)).toEqual(['c']);
     const last = slices.next();
     await new Promise((r) => setTimeout(r, 20));
     expect(acks()).toBe(2);

@@ -1,9 +1,9 @@
 import { Op } from 'sequelize';
 import type { StandardId } from '@shared/api/projects';
 import type { MemberDetail } from '@shared/api/member-detail';
-import type { CheckResult } from '@shared/engine/checks/types';
+import { withForce, type CheckResult } from '@shared/engine';
 import { MemberModel } from '../../db/models/member';
-import { CheckResultModel } from '../../db/models/check-result';
+import { CheckCapacityModel, CheckResultModel } from '../../db/models/check-result';
 import { IfcModelModel } from '../../db/models/ifc-model';
 import type { ProjectModel } from '../../db/models/project';
 import type { RevisionModel } from '../../db/models/revision';
@@ -30,6 +30,9 @@ export async function loadExportBundle(project: ProjectModel, revision: Revision
     ? await CheckResultModel.findAll({ where: { memberId: { [Op.in]: members.map((m) => m.id) }, standard: revision.standard } })
     : [];
   const byMember = new Map(results.map((r) => [r.memberId, r]));
+  const capacityIds = [...new Set(results.map((r) => r.capacityId))];
+  const capacities = capacityIds.length ? await CheckCapacityModel.findAll({ where: { id: { [Op.in]: capacityIds } } }) : [];
+  const capacityOf = new Map(capacities.map((c) => [c.id, c.body as CheckResult]));
   const model = await IfcModelModel.findByPk(revision.modelId, { attributes: ['name'] });
   const modelName = model?.name ?? revision.fileName;
   const versions = [...new Set(results.map((r) => r.engineVersion))].sort();
@@ -54,7 +57,8 @@ export async function loadExportBundle(project: ProjectModel, revision: Revision
         const detail = m.detail as MemberDetail;
         return {
           row: { ...presentMemberRow(m), warnings: detail.warnings ?? [] },
-          result: byMember.get(m.id)!.result as CheckResult,
+          // The stored capacity with the member's design force, as the import made it.
+          result: withForce(capacityOf.get(byMember.get(m.id)!.capacityId)!, m.designForceN),
           detail,
         };
       }),

@@ -1,6 +1,7 @@
 import type { IncomingMessage } from 'node:http';
 import type { MemberSheet } from '@shared/api/member-sheet';
 import { CAUTIONS } from '@shared/api/cautions';
+import { withForce, type CheckResult } from '@shared/engine';
 import type { SessionUser } from '@shared/api/session';
 import { MemberModel } from '../../db/models/member';
 import { plainRead, type Statement } from '../../db/plain-read';
@@ -17,7 +18,7 @@ const MEMBER_SELECT = () =>
 
 interface SheetExtras {
   detailText: string;
-  resultText: string | null;
+  capacityText: string | null;
   engineVersion: string | null;
   revisionNumber: number;
   revisionStandard: string;
@@ -39,12 +40,13 @@ function sheetStatements(revisionId: number, globalId: string, access?: { projec
   const accessSql = access ? `AND md.project_id = ? AND (? OR EXISTS (SELECT 1 FROM project_members pm WHERE pm.project_id = md.project_id AND pm.user_id = ?))` : '';
   return [
     {
-      sql: `SELECT ${MEMBER_SELECT()}, CAST(m.detail AS CHAR) AS detailText, CAST(cr.result AS CHAR) AS resultText, cr.engine_version AS engineVersion,
+      sql: `SELECT ${MEMBER_SELECT()}, CAST(m.detail AS CHAR) AS detailText, CAST(cc.body AS CHAR) AS capacityText, cr.engine_version AS engineVersion,
                    r.number AS revisionNumber, r.standard AS revisionStandard, r.file_name AS revisionFileName
             FROM members m
             JOIN revisions r ON r.id = m.revision_id
             JOIN models md ON md.id = r.model_id
             LEFT JOIN check_results cr ON cr.member_id = m.id AND cr.standard = r.standard
+            LEFT JOIN check_capacities cc ON cc.id = cr.capacity_id
             WHERE m.revision_id = ? AND m.global_id = ? ${accessSql}
             LIMIT 1`,
       values: access ? [revisionId, globalId, access.projectId, access.user.role === 'admin', access.user.id] : [revisionId, globalId],
@@ -60,8 +62,9 @@ function sheetStatements(revisionId: number, globalId: string, access?: { projec
 
 /**
  * The sheet as JSON text (MemberSheet), or null when there is no such member. The stored detail
- * and result (about 6 KB per member) are JSON we wrote; they are read as text and placed in the
- * answer as they are, not parsed and written again. The sheet is the busiest read after the table.
+ * (about 2 KB) is JSON we wrote; it is read as text and placed in the answer as it is, not parsed
+ * and written again. The result is the stored capacity with the member's design force applied,
+ * as the import made it (withForce). The sheet is the busiest read after the table.
  */
 function sheetJsonOf(revisionId: number, rows: SheetRow[], forces: ForceRow[]): string | null {
   const row = rows[0];
@@ -74,7 +77,8 @@ function sheetJsonOf(revisionId: number, rows: SheetRow[], forces: ForceRow[]): 
     engineVersion: row.engineVersion ?? null,
     cautions: CAUTIONS,
   };
-  return `${JSON.stringify(rest).slice(0, -1)},"detail":${row.detailText},"result":${row.resultText ?? 'null'}}`;
+  const result = row.capacityText === null ? null : withForce(JSON.parse(row.capacityText) as CheckResult, row.designForceN as number | null);
+  return `${JSON.stringify(rest).slice(0, -1)},"detail":${row.detailText},"result":${JSON.stringify(result)}}`;
 }
 
 /** The member sheet as JSON text, or null when the caller cannot see such a member: two statements side by side on one connection. */

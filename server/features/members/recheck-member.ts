@@ -1,10 +1,10 @@
 import type { Transaction } from 'sequelize';
-import { checkMemberRaw, type MemberCheckInputRaw } from '@shared/engine';
+import { checkMemberRaw, withoutForce, type MemberCheckInputRaw } from '@shared/engine';
 import { bandOf } from '@shared/api/results';
 import type { MemberDetail } from '@shared/api/member-detail';
 import type { ActiveOverrides } from '@shared/api/overrides';
 import { MemberModel } from '../../db/models/member';
-import { CheckResultModel } from '../../db/models/check-result';
+import { CheckCapacityModel, CheckResultModel } from '../../db/models/check-result';
 import { ENGINE_VERSION } from '../../imports/engine-version';
 
 /** The stored engine input with the engineer's overrides applied. */
@@ -61,7 +61,14 @@ export async function recheckMember(
     band: bandOf(result.utilisation),
   });
   await member.save({ transaction });
+  // The member gets a capacity of its own (its input may now differ from the import's); one
+  // that no other member's result uses any more goes with the old result.
+  const old = await CheckResultModel.findOne({ where: { memberId: member.id, standard }, transaction });
+  const capacity = await CheckCapacityModel.create({ revisionId: member.revisionId, importKey: null, body: withoutForce(result) }, { transaction });
   await CheckResultModel.destroy({ where: { memberId: member.id, standard }, transaction });
-  await CheckResultModel.create({ memberId: member.id, standard, engineVersion: ENGINE_VERSION, result }, { transaction });
+  await CheckResultModel.create({ memberId: member.id, standard, engineVersion: ENGINE_VERSION, capacityId: capacity.id }, { transaction });
+  if (old && !(await CheckResultModel.findOne({ where: { capacityId: old.capacityId }, attributes: ['id'], transaction }))) {
+    await CheckCapacityModel.destroy({ where: { id: old.capacityId }, transaction });
+  }
   return true;
 }

@@ -55,6 +55,16 @@ export function withForce(capacity: CheckResult, force: number | null | undefine
 }
 
 /**
+ * The inverse of withForce: the result as it was checked without a force (utilisation null,
+ * no warning about the force). A capacity result never carries that warning, so
+ * withoutForce(withForce(c, f)) equals c for every force f. Returns a new object.
+ */
+export function withoutForce(result: CheckResult): CheckResult {
+  const warnings = result.warnings.includes(NOT_TENSILE) ? result.warnings.filter((w) => w !== NOT_TENSILE) : result.warnings;
+  return { ...result, utilisation: null, warnings };
+}
+
+/**
  * Per-bolt geometry along the force, mm: for every connected hole, the clear distance
  * towards the member end used for tear-out (end bolts: e1 − d/2; inner bolts: pitch − d).
  * Null entries where e1 is unknown.

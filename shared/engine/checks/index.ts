@@ -1,6 +1,6 @@
 export type { CheckResult, CheckMode, TraceStep, Assumption } from './types.ts';
 export { checkMember, checkMemberRaw } from './check-member.ts';
-export { withForce } from './common-steps.ts';
+export { withForce, withoutForce } from './common-steps.ts';
 export { checkAs4100 } from './as4100.ts';
 export { checkAisc360 } from './aisc360.ts';
 export { checkEn1993 } from './en1993.ts';
