@@ -30,8 +30,33 @@ export interface Body {
 
 const MAX_BREP_POINTS = 20000;
 
+const asName = (n: string) => new TextEncoder().encode(n);
+const EXTRUDED_AREA_SOLID = asName('IFCEXTRUDEDAREASOLID');
+const MAPPED_ITEM = asName('IFCMAPPEDITEM');
+const REPRESENTATION_MAP = asName('IFCREPRESENTATIONMAP');
+const SHAPE_REPRESENTATION = asName('IFCSHAPEREPRESENTATION');
+const PRODUCT_DEFINITION_SHAPE = asName('IFCPRODUCTDEFINITIONSHAPE');
+
 export function emptyBody(): Body {
   return { extrusions: [], cutters: [], brepBox: null, axisLine: null };
+}
+
+/**
+ * The swept solid's references and depth straight from the text when it is a plain
+ * IfcExtrudedAreaSolid (no line object: these and the mapped items are a fifth of a steel
+ * model's lines); null when the line must be read as an object.
+ */
+function sweptSolidFromText(ctx: ModelContext, id: number, t: Mat4): SweptSolid | null {
+  const r = ctx.refsFromText(id, EXTRUDED_AREA_SOLID, 3);
+  if (!r) return null;
+  const depth = ctx.realAt(id, EXTRUDED_AREA_SOLID, 3, 'Depth');
+  return {
+    solidId: id,
+    toPlacement: multiply(t, axisPlacement(ctx, r[1])),
+    profileId: r[0],
+    dir: direction(ctx, r[2], [0, 0, 1]),
+    depth: ctx.mm(depth) ?? 0,
+  };
 }
 
 function sweptSolid(ctx: ModelContext, id: number, t: Mat4): SweptSolid {
@@ -54,6 +79,13 @@ class Walker {
     const ctx = this.ctx;
     if (id === undefined || depth > 32) return;
     const cls = ctx.className(id).toUpperCase();
+    if (cls === 'IFCEXTRUDEDAREASOLID') {
+      const solid = sweptSolidFromText(ctx, id, t);
+      if (solid) {
+        (asCutter ? this.body.cutters : this.body.extrusions).push(solid);
+        return;
+      }
+    } else if (cls === 'IFCMAPPEDITEM' && this.mappedFromText(id, t, asCutter, depth)) return;
     const l = ctx.line(id);
     if (!l) return;
     switch (cls) {
@@ -86,6 +118,17 @@ class Walker {
     }
   }
 
+  /** A mapped item whose item, map and representation the text gives as plain references; false: read the lines. */
+  private mappedFromText(id: number, t: Mat4, asCutter: boolean, depth: number): boolean {
+    const ctx = this.ctx;
+    const item = ctx.refsFromText(id, MAPPED_ITEM, 2);
+    const map = item?.[0] === undefined ? null : ctx.refsFromText(item[0], REPRESENTATION_MAP, 2);
+    if (!item || !map) return false;
+    const m = multiply(t, multiply(transformOperator(ctx, item[1]), axisPlacement(ctx, map[0])));
+    for (const it of map[1] === undefined ? [] : ctx.refsAt(map[1], SHAPE_REPRESENTATION, 3, 'Items')) this.item(it, m, asCutter, depth + 1);
+    return true;
+  }
+
   private brep(shellId: number | undefined, t: Mat4): void {
     const ctx = this.ctx;
     const shell = ctx.line(shellId);
@@ -113,14 +156,22 @@ class Walker {
 /** Reads the 'Body' (or first) shape representation and the 'Axis' curve of a product. */
 export function readBody(ctx: ModelContext, productShapeId: number | undefined): Body {
   const walker = new Walker(ctx);
-  const shape = ctx.line(productShapeId);
-  const reps = refs(shape?.Representations).map((id) => ({ id, l: ctx.line(id) })).filter((r) => r.l);
-  const ident = (r: { l: any }) => (str(r.l.RepresentationIdentifier) ?? '').toLowerCase();
-  const body = reps.find((r) => ident(r) === 'body') ?? reps.find((r) => !['axis', 'box', 'footprint', 'reference', 'annotation'].includes(ident(r)));
-  if (body) for (const it of refs(body.l.Items)) walker.item(it, IDENTITY, false, 0);
-  const axis = reps.find((r) => ident(r) === 'axis');
-  if (axis) walker.body.axisLine = readAxisCurve(ctx, refs(axis.l.Items)[0]);
+  const reps = (productShapeId === undefined ? [] : ctx.refsAt(productShapeId, PRODUCT_DEFINITION_SHAPE, 2, 'Representations')).map((id) => representation(ctx, id)).filter((r) => r !== null);
+  const body = reps.find((r) => r.ident === 'body') ?? reps.find((r) => !['axis', 'box', 'footprint', 'reference', 'annotation'].includes(r.ident));
+  if (body) for (const it of body.items) walker.item(it, IDENTITY, false, 0);
+  const axis = reps.find((r) => r.ident === 'axis');
+  if (axis) walker.body.axisLine = readAxisCurve(ctx, axis.items[0]);
   return walker.body;
+}
+
+/** A representation's identifier (lower case) and items; from the text for a plain IfcShapeRepresentation, else its line (null when there is none). */
+function representation(ctx: ModelContext, id: number): { ident: string; items: number[] } | null {
+  if (ctx.className(id).toUpperCase() === 'IFCSHAPEREPRESENTATION') {
+    const items = ctx.refsAt(id, SHAPE_REPRESENTATION, 3, 'Items');
+    return { ident: (ctx.stringAt(id, SHAPE_REPRESENTATION, 1, 'RepresentationIdentifier') ?? '').toLowerCase(), items };
+  }
+  const l = ctx.line(id);
+  return l ? { ident: (str(l.RepresentationIdentifier) ?? '').toLowerCase(), items: refs(l.Items) } : null;
 }
 
 function readAxisCurve(ctx: ModelContext, id: number | undefined): [Vec3, Vec3] | null {

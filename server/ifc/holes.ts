@@ -79,15 +79,25 @@ function holeFromCutter(
   return hole;
 }
 
+const OPENING_ELEMENT = new TextEncoder().encode('IFCOPENINGELEMENT');
+
+/** An opening's GlobalId, body and placement references: from the text for a plain IfcOpeningElement, else its line (null when there is none). */
+function openingRefs(ctx: ModelContext, id: number): { gid: string | null; representation: number | undefined; placement: number | undefined } | null {
+  const fromText = ctx.className(id).toUpperCase() === 'IFCOPENINGELEMENT' ? ctx.refsFromTextAt(id, OPENING_ELEMENT, 5, 2) : null;
+  if (fromText) return { gid: ctx.stringAt(id, OPENING_ELEMENT, 0, 'GlobalId'), placement: fromText[0], representation: fromText[1] };
+  const op = ctx.line(id);
+  return op ? { gid: str(op.GlobalId), representation: ref(op.Representation), placement: ref(op.ObjectPlacement) } : null;
+}
+
 export function extractHoles(ctx: ModelContext, ix: RelationsIndex, memberId: number, placement: Mat4, body: Body, frame: MemberFrame, label: string): ExtractedHole[] {
   const holes: ExtractedHole[] = [];
   for (const openingId of ix.openings.get(memberId) ?? []) {
-    const op = ctx.line(openingId);
+    const op = openingRefs(ctx, openingId);
     if (!op) continue;
     const isFeature = ctx.className(openingId).toUpperCase() === 'IFCVOIDINGFEATURE';
-    const gid = str(op.GlobalId) ?? `#${openingId}`;
-    const obody = readBody(ctx, ref(op.Representation));
-    const world = objectPlacement(ctx, ref(op.ObjectPlacement));
+    const gid = op.gid ?? `#${openingId}`;
+    const obody = readBody(ctx, op.representation);
+    const world = objectPlacement(ctx, op.placement);
     const solids = [...obody.extrusions, ...obody.cutters];
     if (solids.length === 0) {
       ctx.warnings.add('hole.no-geometry', 'An opening has no swept-solid body, so its position is unknown.', gid);

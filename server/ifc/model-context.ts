@@ -11,7 +11,7 @@
  */
 import { FromRawLineData, type IfcAPI, InheritanceDef, SchemaNames } from 'web-ifc';
 import { DEFER, type StepText } from './step-text.ts';
-import { numList, ref, refs } from './step-values.ts';
+import { num, numList, ref, refs, str } from './step-values.ts';
 import type { IfcSchema, UnitsInfo } from './types.ts';
 import { WarningCollector } from './warnings.ts';
 
@@ -158,9 +158,38 @@ export class ModelContext {
    * (no text, another class, anything else in those arguments).
    */
   refsFromText(id: number, name: Uint8Array, count: number): (number | undefined)[] | null {
+    return this.refsFromTextAt(id, name, 0, count);
+  }
+
+  /** str() of a plain string attribute (argument `index` of a line of class `name`), from the text where it can. */
+  stringAt(id: number | undefined, name: Uint8Array, index: number, attribute: string): string | null {
+    if (this.text && id !== undefined && id > 0) {
+      const v = this.text.stringAt(id, name, index);
+      if (v !== DEFER) {
+        this.linesRead++;
+        return v;
+      }
+    }
+    return str(this.line(id)?.[attribute]);
+  }
+
+  /** num() of a plain number attribute, from the text where it can. */
+  realAt(id: number | undefined, name: Uint8Array, index: number, attribute: string): number | undefined {
+    if (this.text && id !== undefined && id > 0) {
+      const v = this.text.realAt(id, name, index);
+      if (v !== DEFER) {
+        this.linesRead++;
+        return v ?? undefined;
+      }
+    }
+    return num(this.line(id)?.[attribute]);
+  }
+
+  /** refsFromText for `count` attributes from argument `first` on. */
+  refsFromTextAt(id: number, name: Uint8Array, first: number, count: number): (number | undefined)[] | null {
     if (!this.text || id <= 0) return null;
     const out: (number | undefined)[] = [];
-    for (let k = 0; k < count; k++) {
+    for (let k = first; k < first + count; k++) {
       const r = this.text.handles(id, name, k, true);
       if (r === DEFER) return null;
       out.push(r[0]);
@@ -181,12 +210,23 @@ export class ModelContext {
     return ref(this.line(id)?.[attribute]);
   }
 
-  /** Entity class name in IFC spelling, e.g. 'IfcBeam'; '' when unknown. */
+  /**
+   * Entity class name in IFC spelling, e.g. 'IfcBeam'; '' when unknown. From the text's name
+   * of the line when the line is not in the cache (no object is built for it): most callers
+   * then read a few attributes straight from the text.
+   */
   className(id: number | undefined): string {
     if (id === undefined) return '';
-    const l = this.line(id);
-    if (!l) return '';
-    const code = l.type as number;
+    let code: number;
+    const slot = id > 0 ? id % this.slotIds.length : -1;
+    const fromText = this.text && this.fromRaw && slot >= 0 && this.slotIds[slot] !== id ? this.text.typeCodeOf(id) : DEFER;
+    // A type web-ifc has no constructor for makes no line object, so it has no class here either.
+    if (fromText !== DEFER && fromText !== null && typeof this.fromRaw![fromText] === 'function') code = fromText;
+    else {
+      const l = this.line(id);
+      if (!l) return '';
+      code = l.type as number;
+    }
     let n = this.typeNames.get(code);
     if (n === undefined) {
       n = this.api.GetNameFromTypeCode(code) ?? '';

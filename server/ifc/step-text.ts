@@ -345,6 +345,87 @@ export class StepText {
     }
   }
 
+  /**
+   * The type code of the line as raw() would give it, without reading its arguments; null when
+   * the text has no such id, DEFER when web-ifc must read it.
+   */
+  typeCodeOf(id: number): number | null | typeof DEFER {
+    const off = this.offsetOf(id);
+    if (off === NO_OFFSET) return null;
+    if (off === DEFERRED) return DEFER;
+    this.pos = off - 1;
+    try {
+      const type = this.typeCode();
+      return type === 0 || this.bytes[this.pos] !== LPAREN ? DEFER : type;
+    } catch (e) {
+      if (e === defer) return DEFER;
+      throw e;
+    }
+  }
+
+  /**
+   * Moves pos to argument `index` of a line named `name` (in capitals), skipping the arguments
+   * before it as handles() does; false when the line is not there or not of that shape.
+   */
+  private seekArgument(id: number, name: Uint8Array, index: number): boolean {
+    const off = this.offsetOf(id);
+    if (off === NO_OFFSET || off === DEFERRED) return false;
+    const b = this.bytes;
+    let i = off - 1;
+    for (let k = 0; k < name.length; k++, i++) if (b[i] !== name[k]) return false;
+    while (isSpace(b[i])) i++;
+    if (b[i] !== LPAREN) return false;
+    this.pos = i + 1;
+    for (let k = 0; k < index; k++) {
+      this.skipSpace();
+      // web-ifc leaves '*' out of the arguments, which would shift the index.
+      if (b[this.pos] === STAR) return false;
+      this.skip();
+      this.skipSpace();
+      if (b[this.pos++] !== COMMA) return false;
+    }
+    this.skipSpace();
+    return true;
+  }
+
+  /**
+   * A plain string argument as the line object's attribute holds it (str() of it), null for
+   * '$'; DEFER for anything else (escapes and accents are web-ifc's to decode).
+   */
+  stringAt(id: number, name: Uint8Array, index: number): string | null | typeof DEFER {
+    try {
+      if (!this.seekArgument(id, name, index)) return DEFER;
+      const c = this.bytes[this.pos];
+      if (c === DOLLAR) return null;
+      if (c !== QUOTE) return DEFER;
+      const v = this.string();
+      return this.argumentEnds() ? v : DEFER;
+    } catch (e) {
+      if (e === defer) return DEFER;
+      throw e;
+    }
+  }
+
+  /** A plain number argument as num() of the line object's attribute gives it, null for '$'; DEFER for anything else. */
+  realAt(id: number, name: Uint8Array, index: number): number | null | typeof DEFER {
+    try {
+      if (!this.seekArgument(id, name, index)) return DEFER;
+      if (this.bytes[this.pos] === DOLLAR) return null;
+      const v = this.real(this.pos);
+      return v !== null && this.argumentEnds() ? v : DEFER;
+    } catch (e) {
+      if (e === defer) return DEFER;
+      throw e;
+    }
+  }
+
+  /** Whether the argument just read is followed by the next one or the end of the list. */
+  private argumentEnds(): boolean {
+    this.skipSpace();
+    const c = this.bytes[this.pos];
+    return c === COMMA || c === RPAREN;
+  }
+
   /** Moves past one argument (string, list, typed value or plain token) without reading it. */
   private skip(): void {
     const b = this.bytes;
