@@ -31,9 +31,10 @@ export interface Body {
 const MAX_BREP_POINTS = 20000;
 
 const asName = (n: string) => new TextEncoder().encode(n);
-const EXTRUDED_AREA_SOLID = asName('IFCEXTRUDEDAREASOLID');
-const MAPPED_ITEM = asName('IFCMAPPEDITEM');
-const REPRESENTATION_MAP = asName('IFCREPRESENTATIONMAP');
+/** Entity names as written in capitals, for reading their attributes straight from the text. */
+export const EXTRUDED_AREA_SOLID = asName('IFCEXTRUDEDAREASOLID');
+export const MAPPED_ITEM = asName('IFCMAPPEDITEM');
+export const REPRESENTATION_MAP = asName('IFCREPRESENTATIONMAP');
 const SHAPE_REPRESENTATION = asName('IFCSHAPEREPRESENTATION');
 const PRODUCT_DEFINITION_SHAPE = asName('IFCPRODUCTDEFINITIONSHAPE');
 
@@ -125,7 +126,7 @@ class Walker {
     const map = item?.[0] === undefined ? null : ctx.refsFromText(item[0], REPRESENTATION_MAP, 2);
     if (!item || !map) return false;
     const m = multiply(t, multiply(transformOperator(ctx, item[1]), axisPlacement(ctx, map[0])));
-    for (const it of map[1] === undefined ? [] : ctx.refsAt(map[1], SHAPE_REPRESENTATION, 3, 'Items')) this.item(it, m, asCutter, depth + 1);
+    for (const it of representationItems(ctx, map[1])) this.item(it, m, asCutter, depth + 1);
     return true;
   }
 
@@ -156,7 +157,7 @@ class Walker {
 /** Reads the 'Body' (or first) shape representation and the 'Axis' curve of a product. */
 export function readBody(ctx: ModelContext, productShapeId: number | undefined): Body {
   const walker = new Walker(ctx);
-  const reps = (productShapeId === undefined ? [] : ctx.refsAt(productShapeId, PRODUCT_DEFINITION_SHAPE, 2, 'Representations')).map((id) => representation(ctx, id)).filter((r) => r !== null);
+  const reps = representations(ctx, productShapeId);
   const body = reps.find((r) => r.ident === 'body') ?? reps.find((r) => !['axis', 'box', 'footprint', 'reference', 'annotation'].includes(r.ident));
   if (body) for (const it of body.items) walker.item(it, IDENTITY, false, 0);
   const axis = reps.find((r) => r.ident === 'axis');
@@ -164,14 +165,25 @@ export function readBody(ctx: ModelContext, productShapeId: number | undefined):
   return walker.body;
 }
 
+/** The shape representations of an IfcProductDefinitionShape that can be read, in order. */
+export function representations(ctx: ModelContext, productShapeId: number | undefined): { id: number; ident: string; items: number[] }[] {
+  const ids = productShapeId === undefined ? [] : ctx.refsAt(productShapeId, PRODUCT_DEFINITION_SHAPE, 2, 'Representations');
+  return ids.map((id) => representation(ctx, id)).filter((r) => r !== null);
+}
+
+/** The items of a shape representation (from the text when it is a plain IfcShapeRepresentation). */
+export function representationItems(ctx: ModelContext, id: number | undefined): number[] {
+  return id === undefined ? [] : ctx.refsAt(id, SHAPE_REPRESENTATION, 3, 'Items');
+}
+
 /** A representation's identifier (lower case) and items; from the text for a plain IfcShapeRepresentation, else its line (null when there is none). */
-function representation(ctx: ModelContext, id: number): { ident: string; items: number[] } | null {
+function representation(ctx: ModelContext, id: number): { id: number; ident: string; items: number[] } | null {
   if (ctx.className(id).toUpperCase() === 'IFCSHAPEREPRESENTATION') {
     const items = ctx.refsAt(id, SHAPE_REPRESENTATION, 3, 'Items');
-    return { ident: (ctx.stringAt(id, SHAPE_REPRESENTATION, 1, 'RepresentationIdentifier') ?? '').toLowerCase(), items };
+    return { id, ident: (ctx.stringAt(id, SHAPE_REPRESENTATION, 1, 'RepresentationIdentifier') ?? '').toLowerCase(), items };
   }
   const l = ctx.line(id);
-  return l ? { ident: (str(l.RepresentationIdentifier) ?? '').toLowerCase(), items: refs(l.Items) } : null;
+  return l ? { id, ident: (str(l.RepresentationIdentifier) ?? '').toLowerCase(), items: refs(l.Items) } : null;
 }
 
 function readAxisCurve(ctx: ModelContext, id: number | undefined): [Vec3, Vec3] | null {

@@ -6,6 +6,7 @@
 import * as W from 'web-ifc';
 import { type Mat4, multiply, normalize, transformDir, transformPoint } from './mat4.ts';
 import type { ModelContext } from './model-context.ts';
+import { EXTRUDED_AREA_SOLID, MAPPED_ITEM, REPRESENTATION_MAP, representationItems, representations } from './body-geometry.ts';
 import { axisPlacement, objectPlacement, pointMm, transformOperator } from './placements.ts';
 import { findProperty, lengthMm, propertySetsOf } from './property-sets.ts';
 import type { RelationsIndex } from './relations-index.ts';
@@ -38,7 +39,6 @@ function itemBox(ctx: ModelContext, repId: number | undefined): ItemBox {
 }
 
 function itemBoxOf(ctx: ModelContext, repId: number | undefined): ItemBox {
-  const rep = ctx.line(repId);
   let box: Piece['box'] = null;
   let extrusionDir: Vec3 | undefined;
   const grow = (p: Vec3) => {
@@ -49,9 +49,20 @@ function itemBoxOf(ctx: ModelContext, repId: number | undefined): ItemBox {
     }
   };
   let budget = 4000;
-  for (const it of refs(rep?.Items)) {
+  for (const it of representationItems(ctx, repId)) {
     const cls = ctx.className(it).toUpperCase();
+    const solid = cls === 'IFCEXTRUDEDAREASOLID' ? ctx.refsFromText(it, EXTRUDED_AREA_SOLID, 3) : null;
+    if (solid) {
+      const pos = axisPlacement(ctx, solid[1]);
+      const d = numListDir(ctx, solid[2]);
+      const depth = ctx.mm(ctx.realAt(it, EXTRUDED_AREA_SOLID, 3, 'Depth')) ?? 0;
+      grow(transformPoint(pos, [0, 0, 0]));
+      grow(transformPoint(pos, [d[0] * depth, d[1] * depth, d[2] * depth]));
+      extrusionDir = normalize(transformDir(pos, d));
+      continue;
+    }
     const l = ctx.line(it);
+    if (!l) continue;
     if (cls === 'IFCFACETEDBREP') {
       for (const f of refs(ctx.line(ref(l.Outer))?.CfsFaces)) for (const b of refs(ctx.line(f)?.Bounds)) for (const p of refs(ctx.line(ref(ctx.line(b)?.Bound))?.Polygon)) {
         if (budget-- > 0) grow(pointMm(ctx, p));
@@ -75,17 +86,21 @@ function numListDir(ctx: ModelContext, id: number | undefined): Vec3 {
 
 function pieces(ctx: ModelContext, placement: Mat4, shapeId: number | undefined): Piece[] {
   // Representations with their ids: the line cache is small, so a line read again may be another object.
-  const reps = refs(ctx.line(shapeId)?.Representations).map((id) => ({ id, l: ctx.line(id) })).filter((r) => r.l);
-  const bodyRep = reps.find((r) => (str(r.l.RepresentationIdentifier) ?? '').toLowerCase() === 'body') ?? reps[0];
+  const reps = representations(ctx, shapeId);
+  const bodyRep = reps.find((r) => r.ident === 'body') ?? reps[0];
   if (!bodyRep) return [];
-  const items = refs(bodyRep.l.Items);
-  const mapped = items.filter((i) => ctx.isA(i, 'IfcMappedItem'));
+  const mapped = bodyRep.items.filter((i) => ctx.isA(i, 'IfcMappedItem'));
   if (mapped.length > 0) {
     return mapped.map((i) => {
-      const l = ctx.line(i);
-      const src = ctx.line(ref(l.MappingSource));
-      const m = multiply(placement, multiply(transformOperator(ctx, ref(l.MappingTarget)), axisPlacement(ctx, ref(src?.MappingOrigin))));
-      return { m, ...itemBox(ctx, ref(src?.MappedRepresentation)) };
+      // Straight from the text when the item and its map are plain references, else from their lines.
+      const item = ctx.refsFromText(i, MAPPED_ITEM, 2);
+      const map = item?.[0] === undefined ? null : ctx.refsFromText(item[0], REPRESENTATION_MAP, 2);
+      const l = item && map ? null : ctx.line(i);
+      const src = item && map ? null : ctx.line(ref(l?.MappingSource));
+      const target = item && map ? item[1] : ref(l?.MappingTarget);
+      const origin = item && map ? map[0] : ref(src?.MappingOrigin);
+      const m = multiply(placement, multiply(transformOperator(ctx, target), axisPlacement(ctx, origin)));
+      return { m, ...itemBox(ctx, item && map ? map[1] : ref(src?.MappedRepresentation)) };
     });
   }
   return [{ m: placement, ...itemBox(ctx, bodyRep.id) }];

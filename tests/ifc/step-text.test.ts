@@ -13,7 +13,7 @@ import { openModel } from '../../server/ifc/open-model.ts';
 import { axisPlacement, objectPlacement } from '../../server/ifc/placements.ts';
 import { readIfcModel } from '../../server/ifc/read-model.ts';
 import { DEFER, StepText } from '../../server/ifc/step-text.ts';
-import { numList, ref, refs } from '../../server/ifc/step-values.ts';
+import { num, numList, ref, refs, str } from '../../server/ifc/step-values.ts';
 import type { ReadStats } from '../../server/ifc/types.ts';
 import { makeSyntheticModel } from '../../scripts/samples/make-samples.ts';
 import { CORPUS_IFC_FILES, SAMPLE_IFC_FILES } from './corpus-helpers.ts';
@@ -270,6 +270,47 @@ describe('text reader against web-ifc, line by line', () => {
       o.api.CloseModel(o.modelID);
     }
   });
+});
+
+describe('type codes and single attributes straight from the text', () => {
+  const name = (n: string) => new TextEncoder().encode(n);
+  // Attributes read without a line object by the body, hole and bolt readers.
+  const strings: [string, number, string][] = [['IFCSHAPEREPRESENTATION', 1, 'RepresentationIdentifier'], ['IFCOPENINGELEMENT', 0, 'GlobalId'], ['IFCPROPERTYSINGLEVALUE', 0, 'Name']];
+  const reals: [string, number, string][] = [['IFCEXTRUDEDAREASOLID', 3, 'Depth'], ['IFCCIRCLEPROFILEDEF', 3, 'Radius']];
+  for (const [file, load] of [...files, ['awkward spellings', async () => awkwardFile()] as [string, () => Promise<Uint8Array>]]) {
+    it(`${file}: the line object's type and attributes, or left to the line`, async () => {
+      const o = await open(await load());
+      try {
+        let read = 0;
+        for (const id of o.ids) {
+          let l: Record<string, unknown> & { type?: number } | null;
+          try {
+            l = o.api.GetLine(o.modelID, id);
+          } catch {
+            l = null; // no constructor for the type: the reader has no line object either
+          }
+          const code = o.text.typeCodeOf(id);
+          if (!l) continue;
+          if (code !== DEFER) expect(code, `#${id}`).toBe(l?.type ?? null);
+          for (const [n, index, attribute] of strings) {
+            const v = o.text.stringAt(id, name(n), index);
+            if (v === DEFER) continue;
+            read++;
+            expect(v, `#${id} ${attribute}`).toBe(str(l[attribute]));
+          }
+          for (const [n, index, attribute] of reals) {
+            const v = o.text.realAt(id, name(n), index);
+            if (v === DEFER) continue;
+            read++;
+            expect(v ?? undefined, `#${id} ${attribute}`).toBe(num(l[attribute]));
+          }
+        }
+        if (!file.startsWith('awkward')) expect(read).toBeGreaterThan(0);
+      } finally {
+        o.api.CloseModel(o.modelID);
+      }
+    }, 120_000);
+  }
 });
 
 describe('readIfcModel from the text against readIfcModel through GetLine', () => {
