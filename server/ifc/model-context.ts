@@ -190,9 +190,9 @@ export class ModelContext {
     if (!this.text || id <= 0) return null;
     const out: (number | undefined)[] = [];
     for (let k = first; k < first + count; k++) {
-      const r = this.text.handles(id, name, k, true);
+      const r = this.text.handle(id, name, k);
       if (r === DEFER) return null;
-      out.push(r[0]);
+      out.push(r ?? undefined);
     }
     this.linesRead++;
     return out;
@@ -201,10 +201,10 @@ export class ModelContext {
   /** ref() of a single-reference attribute, as refsAt reads it. */
   refAt(id: number, name: Uint8Array, index: number, attribute: string): number | undefined {
     if (this.text && id > 0) {
-      const r = this.text.handles(id, name, index, true);
+      const r = this.text.handle(id, name, index);
       if (r !== DEFER) {
         this.linesRead++;
-        return r[0];
+        return r ?? undefined;
       }
     }
     return ref(this.line(id)?.[attribute]);

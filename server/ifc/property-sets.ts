@@ -84,13 +84,35 @@ export function propertySetsOf(ctx: ModelContext, ix: RelationsIndex, elementId:
   return out;
 }
 
-/** First property with one of these names in any set (case-insensitive), for vendor sets whose names vary. */
-export function findProperty(psets: PropertySets, names: string[]): PropValue | undefined {
-  const wanted = names.map((n) => n.toLowerCase());
-  for (const w of wanted) {
+/** Each set's properties under their names in lower case, in the order findProperty visits them (made once per sets). */
+const byLowerName = new WeakMap<PropertySets, Map<string, PropValue[]>>();
+
+function lowerNameIndex(psets: PropertySets): Map<string, PropValue[]> {
+  let index = byLowerName.get(psets);
+  if (!index) {
+    index = new Map();
     for (const props of psets.values()) {
-      for (const [k, v] of props) if (k.toLowerCase() === w && v.value !== null && v.value !== '') return v;
+      for (const [k, v] of props) {
+        const key = k.toLowerCase();
+        const list = index.get(key);
+        if (list) list.push(v);
+        else index.set(key, [v]);
+      }
     }
+    byLowerName.set(psets, index);
+  }
+  return index;
+}
+
+/**
+ * First property with one of these names in any set (case-insensitive), for vendor sets whose
+ * names vary: the first name that any set has with a value, then the first set that has it.
+ * `psets` must not change after the first call (they are read once per element).
+ */
+export function findProperty(psets: PropertySets, names: string[]): PropValue | undefined {
+  const index = lowerNameIndex(psets);
+  for (const n of names) {
+    for (const v of index.get(n.toLowerCase()) ?? []) if (v.value !== null && v.value !== '') return v;
   }
   return undefined;
 }

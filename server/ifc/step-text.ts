@@ -295,24 +295,9 @@ export class StepText {
    * For the relationship lines, which are a tenth of a model and only their references matter.
    */
   handles(id: number, name: Uint8Array, index: number, single = false): number[] | typeof DEFER {
-    const off = this.offsetOf(id);
-    if (off === NO_OFFSET || off === DEFERRED) return DEFER;
     const b = this.bytes;
-    let i = off - 1;
-    for (let k = 0; k < name.length; k++, i++) if (b[i] !== name[k]) return DEFER;
-    while (isSpace(b[i])) i++;
-    if (b[i] !== LPAREN) return DEFER;
-    this.pos = i + 1;
     try {
-      for (let k = 0; k < index; k++) {
-        this.skipSpace();
-        // web-ifc leaves '*' out of the arguments, which would shift the index.
-        if (b[this.pos] === STAR) return DEFER;
-        this.skip();
-        this.skipSpace();
-        if (b[this.pos++] !== COMMA) return DEFER;
-      }
-      this.skipSpace();
+      if (!this.seekArgument(id, name, index)) return DEFER;
       const c = b[this.pos];
       if (c === DOLLAR) return [];
       if (c === HASH) {
@@ -386,6 +371,26 @@ export class StepText {
     }
     this.skipSpace();
     return true;
+  }
+
+  /**
+   * handles(…, single) without the array: the express id of a plain reference, null for '$',
+   * DEFER for anything else. The hot path of placements and bodies.
+   */
+  handle(id: number, name: Uint8Array, index: number): number | null | typeof DEFER {
+    try {
+      if (!this.seekArgument(id, name, index)) return DEFER;
+      const c = this.bytes[this.pos];
+      if (c === DOLLAR) return null;
+      if (c !== HASH) return DEFER;
+      this.pos++;
+      const s = this.pos;
+      const v = this.integer();
+      return this.pos === s ? DEFER : v;
+    } catch (e) {
+      if (e === defer) return DEFER;
+      throw e;
+    }
   }
 
   /**
