@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useRef, useState, type ChangeEvent, type FocusEvent, type FormEvent, type PointerEvent } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState, type ChangeEvent, type FocusEvent, type FormEvent, type PointerEvent } from 'react';
 import type { z } from 'zod';
 import { ApiError, errorMessage } from './api-client';
 
@@ -64,6 +64,12 @@ export function useZodForm<K extends string, S extends z.ZodType>({ initial, sch
   const [formError, setFormError] = useState<string | null>(null);
   const elements = useRef(new Map<K, HTMLElement>());
   const noticeRef = useRef<HTMLDivElement | null>(null);
+  // Focus goes to the notice after the render that shows it: a frame requested with the error
+  // could come before React had drawn the notice (seen on a loaded machine), and focus was lost.
+  const [noticeFocus, setNoticeFocus] = useState(0);
+  useEffect(() => {
+    if (noticeFocus > 0) noticeRef.current?.focus();
+  }, [noticeFocus]);
   const pressingSubmit = useRef(false);
 
   const validate = useCallback(
@@ -127,7 +133,7 @@ export function useZodForm<K extends string, S extends z.ZodType>({ initial, sch
     setServerFieldErrors(byField);
     setFormError(errorMessage(error));
     // Focus the notice so screen readers announce it and keyboard users start there.
-    requestAnimationFrame(() => noticeRef.current?.focus());
+    setNoticeFocus((n) => n + 1);
   };
 
   const handleSubmit =
@@ -143,7 +149,7 @@ export function useZodForm<K extends string, S extends z.ZodType>({ initial, sch
         if (bad.length > 0) focusFirst(bad);
         else if (now.schemaFormError) {
           setFormError(now.schemaFormError);
-          requestAnimationFrame(() => noticeRef.current?.focus());
+          setNoticeFocus((n) => n + 1);
         }
         return;
       }

@@ -1,4 +1,4 @@
-import { useId, useRef, useState } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
 import type { ForcesReportBody } from '@shared/api';
 import { errorMessage } from '../../../lib/api-client';
 import { formatCount } from '../../../lib/format';
@@ -18,6 +18,11 @@ export function ForcesForm({ projectId, revisionId, revisionNumber }: { projectI
   const [failure, setFailure] = useState<{ message: string; problems: ForcesProblem[] } | null>(null);
   const inputRef = useRef<HTMLInputElement>(null);
   const noticeRef = useRef<HTMLDivElement>(null);
+  // Focus goes to the outcome after the render that shows it (a frame requested with it could come first).
+  const [noticeFocus, setNoticeFocus] = useState(0);
+  useEffect(() => {
+    if (noticeFocus > 0) noticeRef.current?.focus();
+  }, [noticeFocus]);
   const ids = { file: useId(), hint: useId(), error: useId() };
 
   const submit = async () => {
@@ -42,7 +47,7 @@ export function ForcesForm({ projectId, revisionId, revisionNumber }: { projectI
     } catch (error) {
       setFailure({ message: errorMessage(error), problems: forcesProblems(error) });
     }
-    requestAnimationFrame(() => noticeRef.current?.focus());
+    setNoticeFocus((n) => n + 1);
   };
 
   return (

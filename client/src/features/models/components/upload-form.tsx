@@ -1,4 +1,4 @@
-import { useId, useRef, useState, type DragEvent } from 'react';
+import { useEffect, useId, useRef, useState, type DragEvent } from 'react';
 import { Link } from 'react-router';
 import { MODEL_NAME_MAX, type IfcModel, type UploadResponse } from '@shared/api';
 import { errorMessage } from '../../../lib/api-client';
@@ -36,6 +36,11 @@ export function UploadForm({ projectId, models }: { projectId: number; models: r
   const [failure, setFailure] = useState<string | null>(null);
   const inputRef = useRef<HTMLInputElement>(null);
   const noticeRef = useRef<HTMLDivElement>(null);
+  // Focus goes to the notice after the render that shows it (a frame requested with the failure could come first).
+  const [noticeFocus, setNoticeFocus] = useState(0);
+  useEffect(() => {
+    if (noticeFocus > 0) noticeRef.current?.focus();
+  }, [noticeFocus]);
   const ids = { file: useId(), hint: useId(), error: useId(), list: useId(), form: useId() };
 
   const choose = (picked: File | null) => {
@@ -87,7 +92,7 @@ export function UploadForm({ projectId, models }: { projectId: number; models: r
       if (inputRef.current) inputRef.current.value = '';
     } catch (error) {
       setFailure(errorMessage(error));
-      requestAnimationFrame(() => noticeRef.current?.focus());
+      setNoticeFocus((n) => n + 1);
     }
   };
 
