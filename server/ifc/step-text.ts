@@ -270,14 +270,10 @@ export class StepText {
 
   /** The raw line; null when the text has no such id; DEFER when web-ifc must read it. */
   raw(id: number): RawLine | null | typeof DEFER {
-    const off = this.offsetOf(id);
-    if (off === NO_OFFSET) return null;
-    if (off === DEFERRED) return DEFER;
-    this.pos = off - 1;
+    // Leaves pos at the argument list's '('.
+    const type = this.typeCodeOf(id);
+    if (type === null || type === DEFER) return type;
     try {
-      const type = this.typeCode();
-      if (this.bytes[this.pos] !== LPAREN) return DEFER;
-      if (type === 0) return DEFER;
       const args = this.list(true);
       this.end();
       return { ID: id, type, arguments: args };
@@ -378,19 +374,7 @@ export class StepText {
    * DEFER for anything else. The hot path of placements and bodies.
    */
   handle(id: number, name: Uint8Array, index: number): number | null | typeof DEFER {
-    try {
-      if (!this.seekArgument(id, name, index)) return DEFER;
-      const c = this.bytes[this.pos];
-      if (c === DOLLAR) return null;
-      if (c !== HASH) return DEFER;
-      this.pos++;
-      const s = this.pos;
-      const v = this.integer();
-      return this.pos === s ? DEFER : v;
-    } catch (e) {
-      if (e === defer) return DEFER;
-      throw e;
-    }
+    return this.argument(id, name, index, 'reference') as number | null | typeof DEFER;
   }
 
   /**
@@ -398,24 +382,31 @@ export class StepText {
    * '$'; DEFER for anything else (escapes and accents are web-ifc's to decode).
    */
   stringAt(id: number, name: Uint8Array, index: number): string | null | typeof DEFER {
-    try {
-      if (!this.seekArgument(id, name, index)) return DEFER;
-      const c = this.bytes[this.pos];
-      if (c === DOLLAR) return null;
-      if (c !== QUOTE) return DEFER;
-      const v = this.string();
-      return this.argumentEnds() ? v : DEFER;
-    } catch (e) {
-      if (e === defer) return DEFER;
-      throw e;
-    }
+    return this.argument(id, name, index, 'string') as string | null | typeof DEFER;
   }
 
   /** A plain number argument as num() of the line object's attribute gives it, null for '$'; DEFER for anything else. */
   realAt(id: number, name: Uint8Array, index: number): number | null | typeof DEFER {
+    return this.argument(id, name, index, 'real') as number | null | typeof DEFER;
+  }
+
+  /** Argument `index` of a line named `name` read as one plain value of this kind; null for '$', DEFER for anything else. */
+  private argument(id: number, name: Uint8Array, index: number, kind: 'reference' | 'string' | 'real'): number | string | null | typeof DEFER {
     try {
       if (!this.seekArgument(id, name, index)) return DEFER;
-      if (this.bytes[this.pos] === DOLLAR) return null;
+      const c = this.bytes[this.pos];
+      if (c === DOLLAR) return null;
+      if (kind === 'reference') {
+        if (c !== HASH) return DEFER;
+        const s = ++this.pos;
+        const v = this.integer();
+        return this.pos === s ? DEFER : v;
+      }
+      if (kind === 'string') {
+        if (c !== QUOTE) return DEFER;
+        const v = this.string();
+        return this.argumentEnds() ? v : DEFER;
+      }
       const v = this.real(this.pos);
       return v !== null && this.argumentEnds() ? v : DEFER;
     } catch (e) {
