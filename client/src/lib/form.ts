@@ -1,6 +1,7 @@
-import { useCallback, useEffect, useMemo, useRef, useState, type ChangeEvent, type FocusEvent, type FormEvent, type PointerEvent } from 'react';
+import { useCallback, useMemo, useRef, useState, type ChangeEvent, type FocusEvent, type FormEvent, type PointerEvent } from 'react';
 import type { z } from 'zod';
 import { ApiError, errorMessage } from './api-client';
+import { useFocusAfterRender } from './focus-after-render';
 
 /**
  * A small form hook around a zod schema (usually one from @shared/api).
@@ -63,13 +64,7 @@ export function useZodForm<K extends string, S extends z.ZodType>({ initial, sch
   const [serverFieldErrors, setServerFieldErrors] = useState<FieldErrors<K>>({});
   const [formError, setFormError] = useState<string | null>(null);
   const elements = useRef(new Map<K, HTMLElement>());
-  const noticeRef = useRef<HTMLDivElement | null>(null);
-  // Focus goes to the notice after the render that shows it: a frame requested with the error
-  // could come before React had drawn the notice (seen on a loaded machine), and focus was lost.
-  const [noticeFocus, setNoticeFocus] = useState(0);
-  useEffect(() => {
-    if (noticeFocus > 0) noticeRef.current?.focus();
-  }, [noticeFocus]);
+  const { ref: noticeRef, requestFocus: focusNotice } = useFocusAfterRender<HTMLDivElement>();
   const pressingSubmit = useRef(false);
 
   const validate = useCallback(
@@ -132,8 +127,7 @@ export function useZodForm<K extends string, S extends z.ZodType>({ initial, sch
     }
     setServerFieldErrors(byField);
     setFormError(errorMessage(error));
-    // Focus the notice so screen readers announce it and keyboard users start there.
-    setNoticeFocus((n) => n + 1);
+    focusNotice();
   };
 
   const handleSubmit =
@@ -149,7 +143,7 @@ export function useZodForm<K extends string, S extends z.ZodType>({ initial, sch
         if (bad.length > 0) focusFirst(bad);
         else if (now.schemaFormError) {
           setFormError(now.schemaFormError);
-          setNoticeFocus((n) => n + 1);
+          focusNotice();
         }
         return;
       }

@@ -1,4 +1,5 @@
-import { useEffect, useId, useRef, useState } from 'react';
+import { useId, useRef, useState } from 'react';
+import { useFocusAfterRender } from '../../../lib/focus-after-render';
 import type { ForcesReportBody } from '@shared/api';
 import { errorMessage } from '../../../lib/api-client';
 import { formatCount } from '../../../lib/format';
@@ -17,12 +18,7 @@ export function ForcesForm({ projectId, revisionId, revisionNumber }: { projectI
   const [report, setReport] = useState<ForcesReportBody | null>(null);
   const [failure, setFailure] = useState<{ message: string; problems: ForcesProblem[] } | null>(null);
   const inputRef = useRef<HTMLInputElement>(null);
-  const noticeRef = useRef<HTMLDivElement>(null);
-  // Focus goes to the outcome after the render that shows it (a frame requested with it could come first).
-  const [noticeFocus, setNoticeFocus] = useState(0);
-  useEffect(() => {
-    if (noticeFocus > 0) noticeRef.current?.focus();
-  }, [noticeFocus]);
+  const { ref: noticeRef, requestFocus: focusNotice } = useFocusAfterRender<HTMLDivElement>();
   const ids = { file: useId(), hint: useId(), error: useId() };
 
   const submit = async () => {
@@ -47,7 +43,7 @@ export function ForcesForm({ projectId, revisionId, revisionNumber }: { projectI
     } catch (error) {
       setFailure({ message: errorMessage(error), problems: forcesProblems(error) });
     }
-    setNoticeFocus((n) => n + 1);
+    focusNotice();
   };
 
   return (

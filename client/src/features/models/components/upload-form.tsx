@@ -1,4 +1,5 @@
-import { useEffect, useId, useRef, useState, type DragEvent } from 'react';
+import { useId, useRef, useState, type DragEvent } from 'react';
+import { useFocusAfterRender } from '../../../lib/focus-after-render';
 import { Link } from 'react-router';
 import { MODEL_NAME_MAX, type IfcModel, type UploadResponse } from '@shared/api';
 import { errorMessage } from '../../../lib/api-client';
@@ -35,12 +36,7 @@ export function UploadForm({ projectId, models }: { projectId: number; models: r
   const [answer, setAnswer] = useState<UploadResponse | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
   const inputRef = useRef<HTMLInputElement>(null);
-  const noticeRef = useRef<HTMLDivElement>(null);
-  // Focus goes to the notice after the render that shows it (a frame requested with the failure could come first).
-  const [noticeFocus, setNoticeFocus] = useState(0);
-  useEffect(() => {
-    if (noticeFocus > 0) noticeRef.current?.focus();
-  }, [noticeFocus]);
+  const { ref: noticeRef, requestFocus: focusNotice } = useFocusAfterRender<HTMLDivElement>();
   const ids = { file: useId(), hint: useId(), error: useId(), list: useId(), form: useId() };
 
   const choose = (picked: File | null) => {
@@ -92,7 +88,7 @@ export function UploadForm({ projectId, models }: { projectId: number; models: r
       if (inputRef.current) inputRef.current.value = '';
     } catch (error) {
       setFailure(errorMessage(error));
-      setNoticeFocus((n) => n + 1);
+      focusNotice();
     }
   };
 
