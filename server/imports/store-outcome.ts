@@ -1,5 +1,6 @@
 import { Op, QueryTypes, literal, type Sequelize, type Transaction } from 'sequelize';
 import type { RevisionSummary } from '@shared/api/models';
+import { CheckCapacityModel } from '../db/models/check-result';
 import { MemberModel } from '../db/models/member';
 import { RevisionModel } from '../db/models/revision';
 import { ENGINE_VERSION } from './engine-version';
@@ -56,6 +57,10 @@ export async function storeStreamed(
     // that gap. A plain read locks nothing.
     if (await MemberModel.findOne({ where: { revisionId }, attributes: ['id'], transaction })) {
       await MemberModel.destroy({ where: { revisionId }, transaction });
+    }
+    // Its capacities too: they are found again by revision and number, and old ones would be linked.
+    if (await CheckCapacityModel.findOne({ where: { revisionId }, attributes: ['id'], transaction })) {
+      await CheckCapacityModel.destroy({ where: { revisionId }, transaction });
     }
     // Checking the members' key to their revision would hold a shared lock on the revision's
     // row until commit, and the job's progress and heartbeat updates of that row would wait

@@ -96,6 +96,17 @@ describe('storing members in slices', () => {
     expect((await RevisionModel.findByPk(revisionId))!.status).toBe('done');
   });
 
+  it('replaces what an earlier attempt left, capacities included, and links none of it', async () => {
+    await reclaim();
+    // A leftover capacity under a number the new import uses too, with another body.
+    await MemberModel.sequelize!.query(
+      'INSERT INTO check_capacities (revision_id, import_key, body, created_at) VALUES (?, 0, ?, NOW())', { replacements: [revisionId, JSON.stringify({ key: 'stale' })] });
+    expect(await storeStreamed(MemberModel.sequelize!, revisionId, OWNER, 'as4100', slicesOf(1200, 1000), async () => summary)).toBe(true);
+    expect(await counts()).toEqual({ members: 1200, forces: 1200, results: 1200, capacities: 7 });
+    const stale = await sql<{ n: number }>("SELECT COUNT(*) AS n FROM check_capacities WHERE revision_id = ? AND JSON_VALUE(body, '$.key') = 'stale'", [revisionId]);
+    expect(Number(stale[0]?.n)).toBe(0);
+  });
+
   it('keeps nothing when a result names a capacity that was never handed over', async () => {
     await reclaim();
     async function* missing(): AsyncGenerator<StorableSlice> {
