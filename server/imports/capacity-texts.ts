@@ -33,9 +33,11 @@ export class CapacityTexts {
 function sameCapacity(a: CheckResult, b: CheckResult): boolean {
   return a.standard === b.standard && Object.is(a.designCapacity, b.designCapacity) && a.governing === b.governing && a.modes === b.modes
     && a.trace === b.trace && a.assumptions === b.assumptions && Object.is(a.grossArea, b.grossArea) && Object.is(a.netArea, b.netArea) && a.net === b.net
-    && sameWarnings(withoutForce(a).warnings, withoutForce(b).warnings) && Object.keys(a).length === Object.keys(b).length;
+    // The warnings are most often the same list (a tensile force adds none); only else are they compared without the force's.
+    && (a.warnings === b.warnings || sameWarnings(withoutForce(a).warnings, withoutForce(b).warnings))
+    && Object.keys(a).length === Object.keys(b).length;
 }
 
 function sameWarnings(a: string[], b: string[]): boolean {
-  return a === b || (a.length === b.length && a.every((w, i) => w === b[i]));
+  return a.length === b.length && a.every((w, i) => w === b[i]);
 }

@@ -2,7 +2,7 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 
 /**
  * One member's check to one standard: the capacity it was checked from (CheckCapacityModel).
- * The result is that capacity with the member's design force applied (`resultOf`).
+ * The result is that capacity with the member's design force applied by the engine's withForce.
  */
 export class CheckResultModel extends Model<InferAttributes<CheckResultModel>, InferCreationAttributes<CheckResultModel>> {
   declare id: CreationOptional<number>;
