@@ -32,9 +32,9 @@ const MAX_BREP_POINTS = 20000;
 
 const asName = (n: string) => new TextEncoder().encode(n);
 /** Entity names as written in capitals, for reading their attributes straight from the text. */
-export const EXTRUDED_AREA_SOLID = asName('IFCEXTRUDEDAREASOLID');
-export const MAPPED_ITEM = asName('IFCMAPPEDITEM');
-export const REPRESENTATION_MAP = asName('IFCREPRESENTATIONMAP');
+const EXTRUDED_AREA_SOLID = asName('IFCEXTRUDEDAREASOLID');
+const MAPPED_ITEM = asName('IFCMAPPEDITEM');
+const REPRESENTATION_MAP = asName('IFCREPRESENTATIONMAP');
 const SHAPE_REPRESENTATION = asName('IFCSHAPEREPRESENTATION');
 const PRODUCT_DEFINITION_SHAPE = asName('IFCPRODUCTDEFINITIONSHAPE');
 
@@ -43,31 +43,26 @@ export function emptyBody(): Body {
 }
 
 /**
- * The swept solid's references and depth straight from the text when it is a plain
- * IfcExtrudedAreaSolid (no line object: these and the mapped items are a fifth of a steel
- * model's lines); null when the line must be read as an object.
+ * An extruded solid's swept area, position and direction references and its depth (file
+ * units): straight from the text for a plain IfcExtrudedAreaSolid (no line object: these and
+ * the mapped items are a fifth of a steel model's lines), else from its line (the tapered kind
+ * too); null when there is none.
  */
-function sweptSolidFromText(ctx: ModelContext, id: number, t: Mat4): SweptSolid | null {
+export function extrusion(ctx: ModelContext, id: number): { sweptArea?: number; position?: number; direction?: number; depth?: number } | null {
   const r = ctx.refsFromText(id, EXTRUDED_AREA_SOLID, 3);
-  if (!r) return null;
-  const depth = ctx.realAt(id, EXTRUDED_AREA_SOLID, 3, 'Depth');
-  return {
-    solidId: id,
-    toPlacement: multiply(t, axisPlacement(ctx, r[1])),
-    profileId: r[0],
-    dir: direction(ctx, r[2], [0, 0, 1]),
-    depth: ctx.mm(depth) ?? 0,
-  };
+  if (r) return { sweptArea: r[0], position: r[1], direction: r[2], depth: ctx.realAt(id, EXTRUDED_AREA_SOLID, 3, 'Depth') };
+  const l = ctx.line(id);
+  return l ? { sweptArea: ref(l.SweptArea), position: ref(l.Position), direction: ref(l.ExtrudedDirection), depth: num(l.Depth) } : null;
 }
 
-function sweptSolid(ctx: ModelContext, id: number, t: Mat4): SweptSolid {
-  const s = ctx.line(id);
-  return {
+function sweptSolid(ctx: ModelContext, id: number, t: Mat4): SweptSolid | null {
+  const e = extrusion(ctx, id);
+  return e && {
     solidId: id,
-    toPlacement: multiply(t, axisPlacement(ctx, ref(s.Position))),
-    profileId: ref(s.SweptArea),
-    dir: direction(ctx, ref(s.ExtrudedDirection), [0, 0, 1]),
-    depth: ctx.mm(num(s.Depth)) ?? 0,
+    toPlacement: multiply(t, axisPlacement(ctx, e.position)),
+    profileId: e.sweptArea,
+    dir: direction(ctx, e.direction, [0, 0, 1]),
+    depth: ctx.mm(e.depth) ?? 0,
   };
 }
 
@@ -80,34 +75,27 @@ class Walker {
     const ctx = this.ctx;
     if (id === undefined || depth > 32) return;
     const cls = ctx.className(id).toUpperCase();
-    if (cls === 'IFCEXTRUDEDAREASOLID') {
-      const solid = sweptSolidFromText(ctx, id, t);
-      if (solid) {
-        (asCutter ? this.body.cutters : this.body.extrusions).push(solid);
-        return;
-      }
-    } else if (cls === 'IFCMAPPEDITEM' && this.mappedFromText(id, t, asCutter, depth)) return;
+    if (cls === 'IFCEXTRUDEDAREASOLID' || cls === 'IFCEXTRUDEDAREASOLIDTAPERED') {
+      const solid = sweptSolid(ctx, id, t);
+      if (solid) (asCutter ? this.body.cutters : this.body.extrusions).push(solid);
+      return;
+    }
+    if (cls === 'IFCMAPPEDITEM') {
+      const mapped = mappedItem(ctx, id);
+      if (!mapped.source) return;
+      const m = multiply(t, multiply(transformOperator(ctx, mapped.target), axisPlacement(ctx, mapped.origin)));
+      for (const it of representationItems(ctx, mapped.representation)) this.item(it, m, asCutter, depth + 1);
+      return;
+    }
     const l = ctx.line(id);
     if (!l) return;
     switch (cls) {
-      case 'IFCEXTRUDEDAREASOLID':
-      case 'IFCEXTRUDEDAREASOLIDTAPERED':
-        (asCutter ? this.body.cutters : this.body.extrusions).push(sweptSolid(ctx, id, t));
-        return;
       case 'IFCBOOLEANRESULT':
       case 'IFCBOOLEANCLIPPINGRESULT': {
         const op = enumValue(l.Operator);
         this.item(ref(l.FirstOperand), t, asCutter, depth + 1);
         if (op === 'DIFFERENCE') this.item(ref(l.SecondOperand), t, !asCutter, depth + 1);
         else if (op === 'UNION') this.item(ref(l.SecondOperand), t, asCutter, depth + 1);
-        return;
-      }
-      case 'IFCMAPPEDITEM': {
-        const src = ctx.line(ref(l.MappingSource));
-        if (!src) return;
-        const m = multiply(t, multiply(transformOperator(ctx, ref(l.MappingTarget)), axisPlacement(ctx, ref(src.MappingOrigin))));
-        const rep = ctx.line(ref(src.MappedRepresentation));
-        for (const it of refs(rep?.Items)) this.item(it, m, asCutter, depth + 1);
         return;
       }
       case 'IFCFACETEDBREP':
@@ -117,17 +105,6 @@ class Walker {
       default:
         return;
     }
-  }
-
-  /** A mapped item whose item, map and representation the text gives as plain references; false: read the lines. */
-  private mappedFromText(id: number, t: Mat4, asCutter: boolean, depth: number): boolean {
-    const ctx = this.ctx;
-    const item = ctx.refsFromText(id, MAPPED_ITEM, 2);
-    const map = item?.[0] === undefined ? null : ctx.refsFromText(item[0], REPRESENTATION_MAP, 2);
-    if (!item || !map) return false;
-    const m = multiply(t, multiply(transformOperator(ctx, item[1]), axisPlacement(ctx, map[0])));
-    for (const it of representationItems(ctx, map[1])) this.item(it, m, asCutter, depth + 1);
-    return true;
   }
 
   private brep(shellId: number | undefined, t: Mat4): void {
@@ -163,6 +140,20 @@ export function readBody(ctx: ModelContext, productShapeId: number | undefined):
   const axis = reps.find((r) => r.ident === 'axis');
   if (axis) walker.body.axisLine = readAxisCurve(ctx, axis.items[0]);
   return walker.body;
+}
+
+/**
+ * An IfcMappedItem's target operator and its map's origin and representation: from the text
+ * where they are plain references, else from the lines. `source`: false when the item or its
+ * map has no line.
+ */
+export function mappedItem(ctx: ModelContext, id: number): { target?: number; origin?: number; representation?: number; source: boolean } {
+  const item = ctx.refsFromText(id, MAPPED_ITEM, 2);
+  const map = item?.[0] === undefined ? null : ctx.refsFromText(item[0], REPRESENTATION_MAP, 2);
+  if (item && map) return { target: item[1], origin: map[0], representation: map[1], source: true };
+  const l = ctx.line(id);
+  const src = ctx.line(ref(l?.MappingSource));
+  return { target: ref(l?.MappingTarget), origin: ref(src?.MappingOrigin), representation: ref(src?.MappedRepresentation), source: !!src };
 }
 
 /** The shape representations of an IfcProductDefinitionShape that can be read, in order. */

@@ -6,7 +6,7 @@
 import * as W from 'web-ifc';
 import { type Mat4, multiply, normalize, transformDir, transformPoint } from './mat4.ts';
 import type { ModelContext } from './model-context.ts';
-import { EXTRUDED_AREA_SOLID, MAPPED_ITEM, REPRESENTATION_MAP, representationItems, representations } from './body-geometry.ts';
+import { extrusion, mappedItem, representationItems, representations } from './body-geometry.ts';
 import { axisPlacement, objectPlacement, pointMm, transformOperator } from './placements.ts';
 import { findProperty, lengthMm, propertySetsOf } from './property-sets.ts';
 import type { RelationsIndex } from './relations-index.ts';
@@ -51,29 +51,20 @@ function itemBoxOf(ctx: ModelContext, repId: number | undefined): ItemBox {
   let budget = 4000;
   for (const it of representationItems(ctx, repId)) {
     const cls = ctx.className(it).toUpperCase();
-    const solid = cls === 'IFCEXTRUDEDAREASOLID' ? ctx.refsFromText(it, EXTRUDED_AREA_SOLID, 3) : null;
-    if (solid) {
-      const pos = axisPlacement(ctx, solid[1]);
-      const d = numListDir(ctx, solid[2]);
-      const depth = ctx.mm(ctx.realAt(it, EXTRUDED_AREA_SOLID, 3, 'Depth')) ?? 0;
+    if (cls === 'IFCEXTRUDEDAREASOLID') {
+      const e = extrusion(ctx, it);
+      if (!e) continue;
+      const pos = axisPlacement(ctx, e.position);
+      const d = numListDir(ctx, e.direction);
+      const depth = ctx.mm(e.depth) ?? 0;
       grow(transformPoint(pos, [0, 0, 0]));
       grow(transformPoint(pos, [d[0] * depth, d[1] * depth, d[2] * depth]));
       extrusionDir = normalize(transformDir(pos, d));
-      continue;
-    }
-    const l = ctx.line(it);
-    if (!l) continue;
-    if (cls === 'IFCFACETEDBREP') {
-      for (const f of refs(ctx.line(ref(l.Outer))?.CfsFaces)) for (const b of refs(ctx.line(f)?.Bounds)) for (const p of refs(ctx.line(ref(ctx.line(b)?.Bound))?.Polygon)) {
+    } else if (cls === 'IFCFACETEDBREP') {
+      const l = ctx.line(it);
+      for (const f of refs(ctx.line(ref(l?.Outer))?.CfsFaces)) for (const b of refs(ctx.line(f)?.Bounds)) for (const p of refs(ctx.line(ref(ctx.line(b)?.Bound))?.Polygon)) {
         if (budget-- > 0) grow(pointMm(ctx, p));
       }
-    } else if (cls === 'IFCEXTRUDEDAREASOLID') {
-      const pos = axisPlacement(ctx, ref(l.Position));
-      const d = numListDir(ctx, ref(l.ExtrudedDirection));
-      const depth = ctx.mm(num(l.Depth)) ?? 0;
-      grow(transformPoint(pos, [0, 0, 0]));
-      grow(transformPoint(pos, [d[0] * depth, d[1] * depth, d[2] * depth]));
-      extrusionDir = normalize(transformDir(pos, d));
     }
   }
   return { box, extrusionDir };
@@ -92,15 +83,9 @@ function pieces(ctx: ModelContext, placement: Mat4, shapeId: number | undefined)
   const mapped = bodyRep.items.filter((i) => ctx.isA(i, 'IfcMappedItem'));
   if (mapped.length > 0) {
     return mapped.map((i) => {
-      // Straight from the text when the item and its map are plain references, else from their lines.
-      const item = ctx.refsFromText(i, MAPPED_ITEM, 2);
-      const map = item?.[0] === undefined ? null : ctx.refsFromText(item[0], REPRESENTATION_MAP, 2);
-      const l = item && map ? null : ctx.line(i);
-      const src = item && map ? null : ctx.line(ref(l?.MappingSource));
-      const target = item && map ? item[1] : ref(l?.MappingTarget);
-      const origin = item && map ? map[0] : ref(src?.MappingOrigin);
+      const { target, origin, representation } = mappedItem(ctx, i);
       const m = multiply(placement, multiply(transformOperator(ctx, target), axisPlacement(ctx, origin)));
-      return { m, ...itemBox(ctx, item && map ? map[1] : ref(src?.MappedRepresentation)) };
+      return { m, ...itemBox(ctx, representation) };
     });
   }
   return [{ m: placement, ...itemBox(ctx, bodyRep.id) }];
