@@ -5,7 +5,7 @@
  */
 import type { BoltWork } from './bolts.ts';
 import { holeInFrame } from './holes.ts';
-import { transformPoint } from './mat4.ts';
+import { add, scale, transformPoint } from './mat4.ts';
 import type { MemberWork } from './members.ts';
 import type { ModelContext } from './model-context.ts';
 import type { RelationsIndex } from './relations-index.ts';
@@ -119,24 +119,17 @@ class BoxGrid {
   }
 }
 
-/**
- * Bolt positions of a group that cross this member. Asked for every bolt and member near it,
- * so it works in numbers rather than small arrays (the same arithmetic as add/scale/transformPoint).
- */
+/** Bolt positions of a group that cross this member. */
 function crossing(bolt: BoltWork, c: Candidate): Vec3[] {
   const hits: Vec3[] = [];
-  const ax = bolt.group.axis;
-  const h = bolt.halfLength;
-  const min = c.world.min;
-  const max = c.world.max;
-  const m = c.work.frame.fromWorld;
   for (const p of bolt.group.positions) {
-    const a0 = p[0] + ax[0] * -h, a1 = p[1] + ax[1] * -h, a2 = p[2] + ax[2] * -h;
-    const b0 = p[0] + ax[0] * h, b1 = p[1] + ax[1] * h, b2 = p[2] + ax[2] * h;
-    if (Math.max(a0, b0) < min[0] || Math.max(a1, b1) < min[1] || Math.max(a2, b2) < min[2]) continue;
-    if (Math.min(a0, b0) > max[0] || Math.min(a1, b1) > max[1] || Math.min(a2, b2) > max[2]) continue;
-    const la: Vec3 = [m[0] * a0 + m[4] * a1 + m[8] * a2 + m[12], m[1] * a0 + m[5] * a1 + m[9] * a2 + m[13], m[2] * a0 + m[6] * a1 + m[10] * a2 + m[14]];
-    const lb: Vec3 = [m[0] * b0 + m[4] * b1 + m[8] * b2 + m[12], m[1] * b0 + m[5] * b1 + m[9] * b2 + m[13], m[2] * b0 + m[6] * b1 + m[10] * b2 + m[14]];
+    const a = add(p, scale(bolt.group.axis, -bolt.halfLength));
+    const b = add(p, scale(bolt.group.axis, bolt.halfLength));
+    const segMin: Vec3 = [Math.min(a[0], b[0]), Math.min(a[1], b[1]), Math.min(a[2], b[2])];
+    const segMax: Vec3 = [Math.max(a[0], b[0]), Math.max(a[1], b[1]), Math.max(a[2], b[2])];
+    if (segMax.some((v, i) => v < c.world.min[i]) || segMin.some((v, i) => v > c.world.max[i])) continue;
+    const la = transformPoint(c.work.frame.fromWorld, a);
+    const lb = transformPoint(c.work.frame.fromWorld, b);
     if (segmentHitsBox(la, lb, c.local)) hits.push(p);
   }
   return hits;
@@ -152,10 +145,6 @@ export function associateBolts(ctx: ModelContext, ix: RelationsIndex, members: M
   }
   const candByExpress = new Map(candidates.map((c) => [c.work.member.expressId, c]));
   const grid = new BoxGrid(candidates);
-  // Members given bolt holes, sorted once at the end: a stable sort of the holes as they were
-  // added gives the order sorting after every bolt group gave, and addBoltHoles looks only at
-  // modelled holes, whose order among themselves no sort changes.
-  const touched = new Set<MemberWork>();
 
   for (const bolt of bolts) {
     const g = bolt.group;
@@ -191,12 +180,8 @@ export function associateBolts(ctx: ModelContext, ix: RelationsIndex, members: M
       continue;
     }
     g.memberGlobalIds = [...new Set(linked.map((l) => l.work.member.globalId))].sort();
-    for (const { c, work } of linked) {
-      addBoltHoles(work, bolt, c ? cross(c) : g.positions);
-      touched.add(work);
-    }
+    for (const { c, work } of linked) addBoltHoles(work, bolt, c ? cross(c) : g.positions);
   }
-  for (const work of touched) work.member.holes.sort((a, b) => a.x - b.x || a.u - b.u || a.v - b.v);
 }
 
 /** Marks modelled holes that a bolt passes through; adds derived holes where none is modelled. */
@@ -220,4 +205,5 @@ function addBoltHoles(work: MemberWork, bolt: BoltWork, positions: Vec3[]): void
     }
     work.member.holes.push(derived);
   }
+  work.member.holes.sort((a, b) => a.x - b.x || a.u - b.u || a.v - b.v);
 }

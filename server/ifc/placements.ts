@@ -4,7 +4,7 @@
  * so every matrix that leaves this module maps to world millimetres.
  */
 import type { ModelContext } from './model-context.ts';
-import { IDENTITY, type Mat4, fromAxes, multiply, scaleTranslation } from './mat4.ts';
+import { IDENTITY, type Mat4, cross, dot, fromAxes, multiply, normalize, scaleTranslation, sub } from './mat4.ts';
 import { num, ref } from './step-values.ts';
 import type { Vec3 } from './types.ts';
 
@@ -14,31 +14,21 @@ export function pointMm(ctx: ModelContext, id: number | undefined): Vec3 {
   return [(c[0] ?? 0) * s, (c[1] ?? 0) * s, (c[2] ?? 0) * s];
 }
 
-// Placements are read for every element, opening and bolt: these two work in numbers, with
-// the very arithmetic of normalize, sub, dot and cross, to spare the garbage collector.
-
 export function direction(ctx: ModelContext, id: number | undefined, fallback: Vec3): Vec3 {
   const d = ctx.numbers(id, 'direction');
   if (d.length < 2) return fallback;
-  const d0 = d[0], d1 = d[1], d2 = d[2] ?? 0;
-  const n = Math.hypot(d0, d1, d2);
-  if (n < 1e-12) return fallback;
-  return n > 1e-12 ? [d0 / n, d1 / n, d2 / n] : [0, 0, 1];
+  const v: Vec3 = [d[0], d[1], d[2] ?? 0];
+  return Math.hypot(...v) < 1e-12 ? fallback : normalize(v);
 }
 
 function orthoFrame(z: Vec3, xHint: Vec3): { x: Vec3; y: Vec3; z: Vec3 } {
-  let k = xHint[0] * z[0] + xHint[1] * z[1] + xHint[2] * z[2];
-  let x0 = xHint[0] - z[0] * k, x1 = xHint[1] - z[1] * k, x2 = xHint[2] - z[2] * k;
-  if (Math.hypot(x0, x1, x2) < 1e-9) {
+  let x = sub(xHint, [z[0] * dot(xHint, z), z[1] * dot(xHint, z), z[2] * dot(xHint, z)]);
+  if (Math.hypot(...x) < 1e-9) {
     const alt: Vec3 = Math.abs(z[0]) < 0.9 ? [1, 0, 0] : [0, 1, 0];
-    k = alt[0] * z[0] + alt[1] * z[1] + alt[2] * z[2];
-    x0 = alt[0] - z[0] * k;
-    x1 = alt[1] - z[1] * k;
-    x2 = alt[2] - z[2] * k;
+    x = sub(alt, [z[0] * dot(alt, z), z[1] * dot(alt, z), z[2] * dot(alt, z)]);
   }
-  const n = Math.hypot(x0, x1, x2);
-  const x: Vec3 = n > 1e-12 ? [x0 / n, x1 / n, x2 / n] : [0, 0, 1];
-  return { x, y: [z[1] * x[2] - z[2] * x[1], z[2] * x[0] - z[0] * x[2], z[0] * x[1] - z[1] * x[0]], z };
+  x = normalize(x);
+  return { x, y: cross(z, x), z };
 }
 
 const AXIS2PLACEMENT3D = new TextEncoder().encode('IFCAXIS2PLACEMENT3D');
