@@ -65,7 +65,7 @@ export async function recheckMember(
   // that no other member's result uses any more goes with the old result.
   const old = await CheckResultModel.findOne({ where: { memberId: member.id, standard }, transaction });
   const capacity = await CheckCapacityModel.create({ revisionId: member.revisionId, importKey: null, body: withoutForce(result) }, { transaction });
-  await CheckResultModel.destroy({ where: { memberId: member.id, standard }, transaction });
+  await old?.destroy({ transaction });
   await CheckResultModel.create({ memberId: member.id, standard, engineVersion: ENGINE_VERSION, capacityId: capacity.id }, { transaction });
   if (old && !(await CheckResultModel.findOne({ where: { capacityId: old.capacityId }, attributes: ['id'], transaction }))) {
     await CheckCapacityModel.destroy({ where: { id: old.capacityId }, transaction });
