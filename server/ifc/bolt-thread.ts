@@ -1,40 +1,48 @@
+/**
+ * The bolt thread: a large file's bolt groups are read in a thread of their own
+ * (bolt-thread.mjs → bolt-groups-read.ts) while the reading thread extracts members, so the
+ * app's second core works during extraction (decision 0014). The thread reads the same memory
+ * when the bytes are in a SharedArrayBuffer (an import reads its upload into one); others are
+ * copied into one first. A thread that answers waits for the next file; one stopped, failing or
+ * ending without an answer is ended, and answers { ok: false } — the reading thread then reads
+ * the bolt groups itself.
+ */
 import { Worker } from 'node:worker_threads';
+import type { BoltGroupsAnswer, BoltGroupsRequest } from './bolt-groups-read.ts';
 
-/** What web-ifc made of the file in the checking thread. */
-export type OpenCheckAnswer = { ok: true; lines: number; schemaIndex: number } | { ok: false; message: string };
-
-export interface OpenCheck {
-  answer: Promise<OpenCheckAnswer>;
-  /** Ends the thread (and its wasm memory) if it is still running. */
+export interface BoltThreadRead {
+  answer: Promise<BoltGroupsAnswer>;
+  /** Ends the thread if it is still reading. */
   stop(): void;
 }
 
-/** Checking threads waiting for their next file (one per read running at once, usually one). */
+/** Bolt threads waiting for their next file (one per read running at once, usually one). */
 const idle: Worker[] = [];
 
-function checkingThread(): Worker {
-  const reused = idle.pop();
-  if (reused) return reused;
-  // No inherited Node options: the app may run under a TypeScript loader, which this plain
-  // JavaScript thread does not need and which would cost it a second or more to start.
-  return new Worker(new URL('./open-check-thread.mjs', import.meta.url), { execArgv: [] });
+function boltThread(): Worker {
+  return idle.pop() ?? new Worker(new URL('./bolt-thread.mjs', import.meta.url), { resourceLimits: { maxYoungGenerationSizeMb: 96 } });
 }
 
 /**
- * Has web-ifc open the file in a thread of its own (open-check-thread.mjs) and count its lines,
- * so the calling thread can read the file's text meanwhile. The thread reads the same memory
- * when the bytes are in a SharedArrayBuffer; others are copied into one first (a plain copy:
- * handing a 150 MB array to a thread as a structured clone cost 0.1–0.5 s). A thread that
- * answers waits for the next file; one stopped, failing or ending without an answer is
- * ended (and answers { ok: false }).
+ * Starts a bolt thread loading its code, if none is waiting, so that a read which wants one
+ * later finds it ready (loading costs about half a second of CPU). Idle, it holds no file.
  */
-export function startOpenCheck(bytes: Uint8Array): OpenCheck {
-  const worker = checkingThread();
+export function prewarmBoltThread(): void {
+  if (idle.length) return;
+  const worker = boltThread();
+  worker.unref();
+  // One that fails to load is dropped; a read then starts another and, failing again, reads alone.
+  worker.once('error', () => idle.splice(idle.indexOf(worker) >>> 0, 1));
+  idle.push(worker);
+}
+
+export function readBoltGroupsInThread(request: BoltGroupsRequest): BoltThreadRead {
+  const worker = boltThread();
   // Held while it works (a read waits for its answer); an idle one must not keep a process alive.
   worker.ref();
   let settled = false;
-  const answer = new Promise<OpenCheckAnswer>((resolve) => {
-    const settle = (a: OpenCheckAnswer, keep: boolean) => {
+  const answer = new Promise<BoltGroupsAnswer>((resolve) => {
+    const settle = (a: BoltGroupsAnswer, keep: boolean) => {
       if (settled) return;
       settled = true;
       worker.off('message', onMessage);
@@ -46,13 +54,13 @@ export function startOpenCheck(bytes: Uint8Array): OpenCheck {
         idle.push(worker);
       } else void worker.terminate();
     };
-    const onMessage = (m: OpenCheckAnswer) => settle(m, true);
+    const onMessage = (a: BoltGroupsAnswer) => settle(a, true);
     const onError = (e: unknown) => settle({ ok: false, message: e instanceof Error ? e.message : String(e) }, false);
-    const onExit = (code: number) => settle({ ok: false, message: `the checking thread ended (${code}) without an answer` }, false);
+    const onExit = (code: number) => settle({ ok: false, message: `the bolt thread ended (${code}) without an answer` }, false);
     worker.on('message', onMessage);
     worker.once('error', onError);
     worker.once('exit', onExit);
-    worker.postMessage({ bytes: shareable(bytes) });
+    worker.postMessage({ ...request, bytes: shareable(request.bytes) } satisfies BoltGroupsRequest);
   });
   return {
     answer,
@@ -63,8 +71,8 @@ export function startOpenCheck(bytes: Uint8Array): OpenCheck {
   };
 }
 
-/** Checking threads waiting for a file (tests). */
-export function idleCheckingThreads(): number {
+/** Bolt threads waiting for a file (tests). */
+export function idleBoltThreads(): number {
   return idle.length;
 }
 

@@ -6,6 +6,7 @@
 import * as W from 'web-ifc';
 import { extractAnalysisMembers } from './analysis-model.ts';
 import { associateBolts } from './bolt-association.ts';
+import type { BoltGroupsAnswer } from './bolt-groups-read.ts';
 import { type BoltWork, extractBoltGroup, fastenerIds } from './bolts.ts';
 import { DEFAULT_FORCE_PSETS, FORCE_CONVENTION } from './forces.ts';
 import { IfcReadError } from './ifc-errors.ts';
@@ -53,10 +54,12 @@ export interface ExtractInput {
   options: ReadOptions;
   /** Called after each phase with its name (CPU time per phase for ReadStats). */
   mark: (phase: string) => void;
+  /** The bolt groups as another thread read them (bolt-thread.ts); read here when it gave up. */
+  boltGroups?: Promise<BoltGroupsAnswer>;
 }
 
 /** Everything after the lines can be read. Throws IfcReadError when the file has no project. */
-export async function extractModel({ ctx, header, options, mark }: ExtractInput): Promise<ExtractedModel> {
+export async function extractModel({ ctx, header, options, mark, boltGroups }: ExtractInput): Promise<ExtractedModel> {
   const progress = options.progress ?? (() => {});
   const forceSpecs = options.forcePsetNames?.length ? options.forcePsetNames : DEFAULT_FORCE_PSETS;
   const projectId = ctx.idsOfType(W.IFCPROJECT)[0];
@@ -85,8 +88,13 @@ export async function extractModel({ ctx, header, options, mark }: ExtractInput)
     }
   }
   mark('members');
-  const bolts: BoltWork[] = [];
-  for (const id of fasteners) {
+  const fromThread = boltGroups ? await boltGroups : null;
+  const bolts: BoltWork[] = fromThread?.ok ? fromThread.bolts : [];
+  if (fromThread?.ok) {
+    ctx.warnings.merge(fromThread.warnings);
+    ctx.linesRead += fromThread.linesRead;
+    done += fasteners.length;
+  } else for (const id of fasteners) {
     const b = extractBoltGroup(ctx, ix, id);
     if (b) bolts.push(b);
     // Bolt groups can outnumber members; keep reporting so the progress bar does not stall.

@@ -23,7 +23,8 @@ export const CACHE_SIZE_TEXT = 1024;
 export const CACHE_SIZE_WEB_IFC = 65_536;
 
 export class ModelContext {
-  readonly warnings = new WarningCollector();
+  /** Replaced only by a read of bolt groups alone, whose earlier warnings the reader has already (bolt-groups-read.ts). */
+  warnings = new WarningCollector();
   units!: UnitsInfo;
   private readonly slotIds: Float64Array;
   private readonly slotLines: any[];

@@ -1,37 +1,38 @@
 /**
- * readIfcModel: bytes in, plain SI data out. web-ifc validates every file and its line
- * constructors build every line object; lines come from the file's text where that gives the
- * same objects (step-text.ts). No geometry kernel calls: engineering geometry comes from
- * placements and profile parameters. Meant to run inside a worker with a time limit; progress
- * is reported per phase.
+ * readIfcModel: bytes in, plain SI data out. Every line object is built by web-ifc's own line
+ * constructors; lines come from the file's text where that gives the same objects
+ * (step-text.ts). No geometry kernel calls: engineering geometry comes from placements and
+ * profile parameters. Meant to run inside a worker with a time limit; progress is reported per
+ * phase.
  *
- * Two ways to the same model:
- * - a large file is opened by web-ifc in a thread of its own (open-check.ts) while this thread
- *   reads the text and extracts, listing classes from the text's index; the model is kept only
- *   if web-ifc opened the file and counted the same lines. web-ifc's model is opened here as
- *   well only if some line or placement needs it.
- * - otherwise (small files, text that cannot list classes exactly, or the two disagree) web-ifc
- *   opens the model here first, as it always did.
+ * Two ways to the same model (decision 0014):
+ * - text first: when the text is regular (every statement complete and without comments,
+ *   every id once, every class listed exactly, the file not cut off), classes are listed from
+ *   the text's index and web-ifc's model is opened only if some line or placement needs web-ifc
+ *   itself. If web-ifc then counts other lines than the text shows (its tokeniser lost a line
+ *   of a damaged file), the read steps back to the second way.
+ *   From 16 MB up, the bolt groups are read meanwhile in a thread of their own (bolt-thread.ts).
+ * - web-ifc first: web-ifc opens the model here, as it always did; lines still come from the
+ *   text when both count the same lines.
  */
 import type { IfcAPI } from 'web-ifc';
 import { extractModel } from './extract-model.ts';
 import { getIfcApi } from './ifc-api.ts';
 import { IfcReadError, isIfcReadError } from './ifc-errors.ts';
 import { ModelContext } from './model-context.ts';
-import { startOpenCheck } from './open-check.ts';
-import { checkHeader, openFailure, openModel } from './open-model.ts';
+import { type BoltThreadRead, prewarmBoltThread, readBoltGroupsInThread } from './bolt-thread.ts';
+import { checkHeader, openModel } from './open-model.ts';
 import { StepText } from './step-text.ts';
 import type { ExtractedModel, ReadOptions } from './types.ts';
 
-/** From this size up web-ifc opens the file in its own thread (below, starting the thread costs more than it saves). */
-export const OPEN_CHECK_FROM_BYTES = 16 * 1024 * 1024;
+/** From this size up bolt groups are read in a thread of their own (below, the thread's start costs more than it saves). */
+export const BOLTS_IN_THREAD_FROM_BYTES = 16 * 1024 * 1024;
 
 export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {}): Promise<ExtractedModel> {
-  const inThread = options.openInThread ?? bytes.length >= OPEN_CHECK_FROM_BYTES;
-  if (inThread && options.readLinesWith !== 'web-ifc') {
-    const read = await readWhileOpening(bytes, options);
+  if (!options.webIfcFirst && options.readLinesWith !== 'web-ifc') {
+    const read = await readTextFirst(bytes, options);
     if ('model' in read) return read.model;
-    // The text is indexed already; web-ifc opens the file here and decides again whether it may be used.
+    // The text is indexed already; web-ifc opens the file here and decides whether it may be used.
     return readOpened(bytes, options, read.text);
   }
   return readOpened(bytes, options);
@@ -65,56 +66,65 @@ function recordStats(options: ReadOptions, openMs: number, tExtract: number, ctx
 
 const asReadError = (e: unknown) => (isIfcReadError(e) ? e : new IfcReadError('ifc.parse-failed', e instanceof Error ? e.message : String(e), { cause: e }));
 
+/** web-ifc counted other lines than the text shows: the text-first read is given up. */
+class StepBack extends Error {}
+
 /**
- * The large-file way: web-ifc opens the file in another thread while this one extracts from
- * the text. Gives the text back when it cannot stand in for web-ifc's lists or the two disagree
- * (then the caller reads the usual way, without indexing it again). web-ifc's verdict comes first: a file it cannot open fails
- * here as it fails in readOpened, whatever the extraction made of it.
+ * The text-first way. Gives the text back when it cannot stand in for web-ifc's lists, or when
+ * web-ifc, opened for a line the text could not read exactly, counts other lines (then the
+ * caller reads the web-ifc-first way without indexing again). A file web-ifc cannot open fails
+ * here only if some line needed web-ifc; the 3D geometry opens every file with web-ifc later.
  */
-async function readWhileOpening(bytes: Uint8Array, options: ReadOptions): Promise<{ model: ExtractedModel } | { text: StepText }> {
+async function readTextFirst(bytes: Uint8Array, options: ReadOptions): Promise<{ model: ExtractedModel } | { text: StepText }> {
   const progress = options.progress ?? (() => {});
   progress('reading', 0);
   const header = checkHeader(bytes);
-  const check = startOpenCheck(bytes);
   const api = await getIfcApi();
   const tStart = performance.now();
   const { phases, mark } = phaseClock(options);
   let openedHere: number | null = null;
   let ctx: ModelContext | null = null;
+  const inThread = !header.truncated && (options.boltsInThread ?? bytes.length >= BOLTS_IN_THREAD_FROM_BYTES);
+  // Loading while the text is indexed; it reads the bolt groups from this thread's index.
+  if (inThread) prewarmBoltThread();
+  let boltRead: BoltThreadRead | null = null;
   try {
     const text = StepText.index(bytes, (name) => api.GetTypeCodeFromName(name));
-    // Opened here too only when a line or placement needs web-ifc itself; a failure is kept, not retried per line.
+    if (header.truncated || !text.regular) return { text };
+    const index = inThread ? text.snapshot() : null;
+    if (index) boltRead = readBoltGroupsInThread({ bytes, index, schema: header.schema, schemaIdentifier: header.schemaIdentifier, cacheSize: options.cacheSize });
+    // Opened only when a line or placement needs web-ifc itself; a failure is kept, not retried per line.
     let openError: unknown = null;
     const openHere = () => {
       if (openError) throw openError;
+      if (openedHere !== null) return openedHere;
       try {
-        return (openedHere ??= openModel(api, bytes).modelID);
+        openedHere = openModel(api, bytes).modelID;
       } catch (e) {
         throw (openError = e);
       }
+      if (lineCount(api, openedHere) !== text.size) throw (openError = new StepBack());
+      return openedHere;
     };
     ctx = new ModelContext(api, openHere, header.schema, options.cacheSize, text, { schemaIdentifier: header.schemaIdentifier });
     if (!ctx.listsFromText) return { text };
-    if (options.stats) {
-      options.stats.textReader = true;
-      options.stats.openInThread = true;
-    }
+    if (options.stats) options.stats.textReader = true;
     mark('text index');
     progress('reading', 1);
     let model: ExtractedModel | null = null;
     let failure: unknown = null;
     try {
-      model = await extractModel({ ctx, header, options, mark });
+      model = await extractModel({ ctx, header, options, mark, boltGroups: boltRead?.answer });
     } catch (e) {
       failure = e;
     }
-    const verdict = await check.answer;
-    if (!verdict.ok) throw openFailure(header, verdict.message);
-    if (verdict.lines !== text.size || verdict.schemaIndex !== ctx.listsSchemaIndex) return { text };
+    // Extractors treat a line they could not get as missing; a failed open decides here instead.
+    if (openError instanceof StepBack) return { text };
+    if (openError) throw asReadError(openError);
     if (failure) throw asReadError(failure);
     return { model: model! };
   } finally {
-    check.stop();
+    boltRead?.stop();
     recordStats(options, 0, tStart, ctx, phases);
     if (openedHere !== null) closeQuietly(api, openedHere);
   }
@@ -137,10 +147,7 @@ async function readOpened(bytes: Uint8Array, options: ReadOptions, indexed?: Ste
     const text = options.readLinesWith === 'web-ifc' ? null : (indexed ?? StepText.index(bytes, (name) => api.GetTypeCodeFromName(name)));
     const agrees = text !== null && text.size === lineCount(api, opened.modelID);
     ctx = new ModelContext(api, opened.modelID, opened.schema, options.cacheSize, agrees ? text : null);
-    if (options.stats) {
-      options.stats.textReader = agrees;
-      options.stats.openInThread = false;
-    }
+    if (options.stats) options.stats.textReader = agrees;
     mark('text index');
     return await extractModel({ ctx, header: opened, options, mark });
   } catch (e) {

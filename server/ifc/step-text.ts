@@ -5,9 +5,9 @@
  * about 7 µs per line inside the wasm and its JavaScript bindings; building the object from
  * raw arguments costs about 0.5 µs, and tokenising one line here about as much.
  *
- * web-ifc still opens the file (it is the validator: a line web-ifc does not know is not read
- * here either, see ModelContext) and stays the reader of every line this tokeniser does not
- * handle exactly like web-ifc: strings with escapes or bytes above 127, comments inside a
+ * web-ifc's schema decides what a line is (a line whose name web-ifc does not know is not read
+ * here either, see ModelContext), and web-ifc stays the reader of every line this tokeniser
+ * does not handle exactly like web-ifc: strings with escapes or bytes above 127, comments inside a
  * line, complex entity instances, duplicate ids, a statement cut off by the end of the file.
  * For those, raw() answers DEFER and the caller asks web-ifc.
  *
@@ -16,6 +16,17 @@
 
 /** raw() cannot read this line exactly as web-ifc would; ask web-ifc. */
 export const DEFER = Symbol('defer');
+
+/** A regular text's index as StepText.snapshot gives it to another thread. */
+export interface StepTextIndex {
+  size: number;
+  /** Offset + 1 of each id's entity name (StepText's dense offsets), in shared memory. */
+  offsets: Uint32Array;
+  /** Ids beyond the dense offsets, with their offset + 1. */
+  sparse: [number, number][];
+  /** Per type: its code, the count of its ids, then the ids in file order; in shared memory. */
+  lists: Uint32Array;
+}
 
 /** The raw line as web-ifc's wasm returns it: arguments as {type, value} tokens. */
 export interface RawLine {
@@ -44,6 +55,10 @@ const COMMA = 0x2c;
 const DOLLAR = 0x24;
 const DOT = 0x2e;
 const BACKSLASH = 0x5c;
+
+const KEYWORD_DATA = new TextEncoder().encode('DATA');
+const KEYWORD_ENDSEC = new TextEncoder().encode('ENDSEC');
+const KEYWORD_END = new TextEncoder().encode('END-ISO-10303-21');
 
 const NO_OFFSET = 0;
 const DEFERRED = 0xffffffff;
@@ -100,6 +115,42 @@ export class StepText {
     return self;
   }
 
+  /**
+   * The index of a regular text in memory another thread can read, so that it reads the same
+   * bytes without scanning them again (bolt-thread.ts): offsets, and per type its code, count
+   * and ids. Null for irregular text, which is read in one thread.
+   */
+  snapshot(): StepTextIndex | null {
+    if (!this.regular) return null;
+    const offsets = new Uint32Array(new SharedArrayBuffer(this.offsets.byteLength));
+    offsets.set(this.offsets);
+    const byType = this.lists().byType;
+    let words = 0;
+    for (const ids of byType.values()) words += 2 + ids.length;
+    const lists = new Uint32Array(new SharedArrayBuffer(words * 4));
+    let k = 0;
+    for (const [code, ids] of byType) {
+      lists[k++] = code;
+      lists[k++] = ids.length;
+      for (const id of ids) lists[k++] = id;
+    }
+    return { size: this.size, offsets, sparse: [...this.sparse], lists };
+  }
+
+  /** A text indexed by another thread (snapshot): the same reads, without the scan. */
+  static adopt(bytes: Uint8Array, index: StepTextIndex, codeOf: (name: string) => number): StepText {
+    const self = new StepText(bytes, index.offsets, codeOf);
+    self.size = index.size;
+    self.sparse = new Map(index.sparse);
+    self.byType = new Map();
+    const { lists } = index;
+    // Each list becomes an array when first asked for: a reader asks for a few dozen types.
+    for (let k = 0; k < lists.length; k += 2 + lists[k + 1]) self.adoptedLists.set(lists[k], lists.subarray(k + 2, k + 2 + lists[k + 1]));
+    return self;
+  }
+
+  private readonly adoptedLists = new Map<number, Uint32Array>();
+
   /** Distinct express ids found in the text. */
   size = 0;
 
@@ -112,12 +163,41 @@ export class StepText {
     return this.lists().exact;
   }
 
+  /**
+   * Every statement ends before the end of the file and holds no comment, and the lists are
+   * exact: nothing of the text is left to web-ifc but single values this tokeniser defers.
+   */
+  get regular(): boolean {
+    return this.cutOrCommented === 0 && this.stray === 0 && this.listsExact;
+  }
+
+  /** Statements cut off by the end of the file or holding a comment (web-ifc reads them). */
+  private cutOrCommented = 0;
+  /** Statements in a DATA section that are not `#id=` lines nor the section's end (garbage). */
+  private stray = 0;
+  private inData = false;
+
+  /** Notes a statement without `#id=` starting at s: the DATA keyword, a section's end, or stray. */
+  private statementWithoutId(s: number): void {
+    if (this.startsWith(s, KEYWORD_DATA)) this.inData = true;
+    else if (this.inData && !this.startsWith(s, KEYWORD_ENDSEC) && !this.startsWith(s, KEYWORD_END)) this.stray++;
+  }
+
+  private startsWith(s: number, word: Uint8Array): boolean {
+    for (let k = 0; k < word.length; k++) if (this.bytes[s + k] !== word[k]) return false;
+    return true;
+  }
+
   private exact = true;
   private byType: Map<number, number[]> | null = null;
 
   /** Ids of the lines of exactly this type, in file order, as web-ifc lists them (only meaningful while listsExact). */
   idsOfType(code: number): readonly number[] {
-    return this.lists().byType.get(code) ?? NO_IDS;
+    const byType = this.lists().byType;
+    let ids = byType.get(code);
+    const adopted = ids ? undefined : this.adoptedLists.get(code);
+    if (adopted) byType.set(code, (ids = Array.from(adopted)));
+    return ids ?? NO_IDS;
   }
 
   /** The lists by type code, gathered from the names' entries once the scan is done. */
@@ -223,6 +303,7 @@ export class StepText {
           }
         }
       }
+      if (id < 0) this.statementWithoutId(i);
       // To the end of the statement: a ';' outside strings. Buffer.indexOf (memchr) finds the
       // next ';', quote and '/' far faster than a loop over every byte; the positions found
       // are kept while they still lie ahead.
@@ -257,7 +338,10 @@ export class StepText {
       }
       if (id >= 0) {
         if (clean && i < n) this.record(id, start);
-        else this.record(id, null); // cut off by the end of the file, or holds a comment
+        else {
+          this.record(id, null); // cut off by the end of the file, or holds a comment
+          this.cutOrCommented++;
+        }
         this.fileUnderType(id, start);
       }
       i++;

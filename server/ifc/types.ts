@@ -37,10 +37,16 @@ export interface ReadOptions {
    */
   listProfiles?: boolean;
   /**
-   * true: web-ifc opens the file in a thread of its own while this one reads the text
-   * (read-model.ts); false: web-ifc opens it here first. Default: true from 16 MB up.
+   * true: web-ifc opens the file before anything is read (the way a read takes anyway when the
+   * text is irregular, read-model.ts); default false: the text first, web-ifc only if a line
+   * needs it. Tests compare the two.
    */
-  openInThread?: boolean;
+  webIfcFirst?: boolean;
+  /**
+   * true: bolt groups are read in a thread of their own while members are read (text-first reads
+   * only); false: in this thread after the members. Default: true from 16 MB up (read-model.ts).
+   */
+  boltsInThread?: boolean;
   /** Filled in by readIfcModel when given: where the time went, for benchmarks. */
   stats?: ReadStats;
 }
@@ -53,10 +59,8 @@ export interface ReadStats {
   extractMs: number;
   /** Lines handed to the extractors (cache misses). */
   linesRead: number;
-  /** The file's text was indexed and web-ifc counted the same lines, so lines came from the text. */
+  /** Lines came from the file's text (read text first, or web-ifc counted the same lines); openMs is 0 when read text first. */
   textReader?: boolean;
-  /** web-ifc opened the file in another thread while this one extracted (openMs is then 0). */
-  openInThread?: boolean;
   /** Of those, lines read through web-ifc's GetLine. */
   linesFromWebIfc: number;
   /** CPU ms of the process per phase of the extraction. */

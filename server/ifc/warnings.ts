@@ -16,6 +16,19 @@ export class WarningCollector {
     if (example && w.examples.length < MAX_EXAMPLES && !w.examples.includes(example)) w.examples.push(example);
   }
 
+  /** Adds warnings collected elsewhere after this collector's own, as if added here in that order. */
+  merge(warnings: ExtractionWarning[]): void {
+    for (const w of warnings) {
+      let mine = this.byCode.get(w.code);
+      if (!mine) {
+        mine = { code: w.code, message: w.message, count: 0, examples: [] };
+        this.byCode.set(w.code, mine);
+      }
+      mine.count += w.count;
+      for (const e of w.examples) if (mine.examples.length < MAX_EXAMPLES && !mine.examples.includes(e)) mine.examples.push(e);
+    }
+  }
+
   list(): ExtractionWarning[] {
     return [...this.byCode.values()].sort((a, b) => a.code.localeCompare(b.code));
   }

@@ -1,11 +1,11 @@
-// The import reads an upload into shared memory so that web-ifc's checking thread reads the
-// same bytes instead of a copy (server/imports/read-upload-bytes.ts, server/ifc/open-check.ts).
+// The import reads an upload into shared memory so that the bolt thread reads the same bytes
+// instead of a copy (server/imports/read-upload-bytes.ts, server/ifc/bolt-thread.ts).
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { readUploadBytes } from '../../server/imports/read-upload-bytes.ts';
-import { shareable, startOpenCheck } from '../../server/ifc/open-check.ts';
+import { shareable } from '../../server/ifc/bolt-thread.ts';
 import { makeZip } from '../support/make-zip.ts';
 
 const SAMPLE = path.resolve(import.meta.dirname, '../../samples/kestrel-yard-shed.ifc');
@@ -42,20 +42,12 @@ describe('readUploadBytes', () => {
   });
 });
 
-describe('shareable and the checking thread', () => {
+describe('shareable', () => {
   it('passes shared bytes through and copies others once', () => {
     const plain = new Uint8Array([1, 2, 3]);
     const copy = shareable(plain);
     expect(copy.buffer).toBeInstanceOf(SharedArrayBuffer);
     expect([...copy]).toEqual([1, 2, 3]);
     expect(shareable(copy)).toBe(copy);
-  });
-
-  it('web-ifc opens the file from shared memory and counts the same lines either way', async () => {
-    const shared = await readUploadBytes(SAMPLE, 'ifc', 1e9, { shared: true });
-    const fromShared = await startOpenCheck(shared).answer;
-    const fromPlain = await startOpenCheck(new Uint8Array(readFileSync(SAMPLE))).answer;
-    expect(fromShared.ok).toBe(true);
-    expect(fromShared).toEqual(fromPlain);
   });
 });
