@@ -1,6 +1,6 @@
 /**
  * Bolt groups read on their own from a file's text: what the bolt thread does while the
- * reading thread extracts members (bolt-thread.ts, decision 0014). The same steps as
+ * reading thread extracts members (reader-thread.ts, decision 0014). The same steps as
  * extractModel before and during its bolt phase — units, relations, fasteners — so the groups
  * and their warnings are the ones a read in one thread gives. Gives up (ok: false) wherever the
  * reading thread would do more than read the text: irregular text, a line that needs web-ifc, a

@@ -54,7 +54,7 @@ export interface ExtractInput {
   options: ReadOptions;
   /** Called after each phase with its name (CPU time per phase for ReadStats). */
   mark: (phase: string) => void;
-  /** The bolt groups as another thread read them (bolt-thread.ts); read here when it gave up. */
+  /** The bolt groups as the reader thread read them (reader-thread.ts); read here when it gave up. */
   boltGroups?: Promise<BoltGroupsAnswer>;
 }
 

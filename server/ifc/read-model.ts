@@ -11,7 +11,8 @@
  *   the text's index and web-ifc's model is opened only if some line or placement needs web-ifc
  *   itself. If web-ifc then counts other lines than the text shows (its tokeniser lost a line
  *   of a damaged file), the read steps back to the second way.
- *   From 16 MB up, the bolt groups are read meanwhile in a thread of their own (bolt-thread.ts).
+ *   From 16 MB up, a second thread indexes the second half of the text meanwhile, then reads the
+ *   bolt groups while this one reads members (reader-thread.ts).
  * - web-ifc first: web-ifc opens the model here, as it always did; lines still come from the
  *   text when both count the same lines.
  */
@@ -20,13 +21,14 @@ import { extractModel } from './extract-model.ts';
 import { getIfcApi } from './ifc-api.ts';
 import { IfcReadError, isIfcReadError } from './ifc-errors.ts';
 import { ModelContext } from './model-context.ts';
-import { type BoltThreadRead, prewarmBoltThread, readBoltGroupsInThread } from './bolt-thread.ts';
+import type { BoltGroupsAnswer } from './bolt-groups-read.ts';
+import { askReaderThread, prewarmReaderThread, type ReaderThreadWork, shareable } from './reader-thread.ts';
 import { checkHeader, openModel } from './open-model.ts';
 import { StepText } from './step-text.ts';
 import type { ExtractedModel, ReadOptions } from './types.ts';
 
-/** From this size up bolt groups are read in a thread of their own (below, the thread's start costs more than it saves). */
-export const BOLTS_IN_THREAD_FROM_BYTES = 16 * 1024 * 1024;
+/** From this size up the reader thread indexes half the text and reads the bolt groups (below, handing work over costs more than it saves). */
+export const READER_THREAD_FROM_BYTES = 16 * 1024 * 1024;
 
 export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {}): Promise<ExtractedModel> {
   if (!options.webIfcFirst && options.readLinesWith !== 'web-ifc') {
@@ -84,15 +86,24 @@ async function readTextFirst(bytes: Uint8Array, options: ReadOptions): Promise<{
   const { phases, mark } = phaseClock(options);
   let openedHere: number | null = null;
   let ctx: ModelContext | null = null;
-  const inThread = !header.truncated && (options.boltsInThread ?? bytes.length >= BOLTS_IN_THREAD_FROM_BYTES);
+  const inThread = !header.truncated && (options.readerThread ?? bytes.length >= READER_THREAD_FROM_BYTES);
   // Loading while the text is indexed; it reads the bolt groups from this thread's index.
-  if (inThread) prewarmBoltThread();
-  let boltRead: BoltThreadRead | null = null;
+  if (inThread) prewarmReaderThread();
+  // Both threads read the same memory.
+  if (inThread) bytes = shareable(bytes);
+  const split = inThread ? StepText.splitPoint(bytes) : null;
+  const restRead = split !== null ? askReaderThread({ kind: 'index-rest', bytes, from: split }) : null;
+  let boltRead: ReaderThreadWork<BoltGroupsAnswer> | null = null;
   try {
-    const text = StepText.index(bytes, (name) => api.GetTypeCodeFromName(name));
+    const codeOf = (name: string) => api.GetTypeCodeFromName(name);
+    const text = split !== null ? StepText.indexUpTo(bytes, split, codeOf) : StepText.index(bytes, codeOf);
+    if (restRead) {
+      const rest = await restRead.answer;
+      text.finishFrom(rest.ok ? rest.rest : null);
+    }
     if (header.truncated || !text.regular) return { text };
     const index = inThread ? text.snapshot() : null;
-    if (index) boltRead = readBoltGroupsInThread({ bytes, index, schema: header.schema, schemaIdentifier: header.schemaIdentifier, cacheSize: options.cacheSize });
+    if (index) boltRead = askReaderThread({ kind: 'bolt-groups', bytes, index, schema: header.schema, schemaIdentifier: header.schemaIdentifier, cacheSize: options.cacheSize });
     // Opened only when a line or placement needs web-ifc itself; a failure is kept, not retried per line.
     let openError: unknown = null;
     const openHere = () => {
@@ -124,6 +135,7 @@ async function readTextFirst(bytes: Uint8Array, options: ReadOptions): Promise<{
     if (failure) throw asReadError(failure);
     return { model: model! };
   } finally {
+    restRead?.stop();
     boltRead?.stop();
     recordStats(options, 0, tStart, ctx, phases);
     if (openedHere !== null) closeQuietly(api, openedHere);

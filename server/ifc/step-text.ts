@@ -17,6 +17,19 @@
 /** raw() cannot read this line exactly as web-ifc would; ask web-ifc. */
 export const DEFER = Symbol('defer');
 
+/** The second part of a text indexed in two threads (StepText.indexRest → finishFrom). */
+export interface StepTextRest {
+  /** Where that part's scan began. */
+  from: number;
+  offsets: Uint32Array;
+  sparse: [number, number][];
+  exact: boolean;
+  cutOrCommented: number;
+  stray: number;
+  /** Each name met in the part: one occurrence in the file, its hash, and its ids in file order. */
+  names: { start: number; length: number; hash: number; ids: Uint32Array }[];
+}
+
 /** A regular text's index as StepText.snapshot gives it to another thread. */
 export interface StepTextIndex {
   size: number;
@@ -72,6 +85,9 @@ const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
 /** A name as written, web-ifc's code for it, and the ids of the lines written with it (file order). */
 interface NameEntry {
   bytes: Uint8Array;
+  /** Where the name was first met in the file (another thread's part names it by this). */
+  start: number;
+  hash: number;
   code: number;
   ids: number[] | null;
 }
@@ -111,13 +127,90 @@ export class StepText {
   /** One pass over the bytes: where each `#id=` statement starts. */
   static index(bytes: Uint8Array, codeOf: (name: string) => number): StepText {
     const self = new StepText(bytes, new Uint32Array(1024), codeOf);
-    self.scan();
+    self.scanned = self.scan(0, bytes.length);
     return self;
+  }
+
+  /** How far the scan has come (the file's length once indexed). */
+  private scanned = 0;
+
+  /**
+   * Where another thread may index the rest of the file (indexRest) while this one indexes up
+   * to it (indexUpTo): a `#` starting a line after a `;`, past the middle. Only a guess — a
+   * string may hold such bytes — which finishFrom checks. Null when there is none.
+   */
+  static splitPoint(bytes: Uint8Array): number | null {
+    const text = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+    for (let at = text.indexOf(';\n#', bytes.length >> 1, 'latin1'); at >= 0; at = text.indexOf(';\n#', at + 1, 'latin1')) return at + 2;
+    return null;
+  }
+
+  /** Indexes the statements that start before `to`; finishFrom completes the index. */
+  static indexUpTo(bytes: Uint8Array, to: number, codeOf: (name: string) => number): StepText {
+    const self = new StepText(bytes, new Uint32Array(1024), codeOf);
+    self.scanned = self.scan(0, to);
+    return self;
+  }
+
+  /** The statements from `from` (a statement start inside DATA) to the end, indexed for another thread's StepText. */
+  static indexRest(bytes: Uint8Array, from: number, codeOf: (name: string) => number): StepTextRest {
+    const part = new StepText(bytes, new Uint32Array(1024), codeOf);
+    part.inData = true;
+    part.scan(from, bytes.length);
+    const names: StepTextRest['names'] = [];
+    for (const entries of part.names.values()) for (const e of entries) if (e.ids) names.push({ start: e.start, length: e.bytes.length, hash: e.hash, ids: Uint32Array.from(e.ids) });
+    return { from, offsets: part.offsets, sparse: [...part.sparse], exact: part.exact, cutOrCommented: part.cutOrCommented, stray: part.stray, names };
+  }
+
+  /**
+   * Completes an index begun by indexUpTo with the rest another thread indexed, when this scan
+   * ended exactly where that one began, inside DATA (then both read the statements a single scan
+   * would); else scans the rest here. Ids are merged as a single scan records them, repeats included.
+   */
+  finishFrom(rest: StepTextRest | null): void {
+    const n = this.bytes.length;
+    if (this.scanned >= n) return;
+    if (!rest || rest.from !== this.scanned || !this.inData) {
+      this.scanned = this.scan(this.scanned, n);
+      return;
+    }
+    this.mergeOffsets(rest.offsets);
+    for (const [id, value] of rest.sparse) this.recordValue(id, value);
+    if (!rest.exact) this.exact = false;
+    this.cutOrCommented += rest.cutOrCommented;
+    this.stray += rest.stray;
+    for (const { start, length, hash, ids } of rest.names) {
+      const entry = this.nameEntry(hash, start, start + length);
+      const list = (entry.ids ??= []);
+      for (let k = 0; k < ids.length; k++) list.push(ids[k]);
+    }
+    this.scanned = n;
+  }
+
+  /** recordValue for every id of another part's dense offsets, without a call per id (a million or more). */
+  private mergeOffsets(other: Uint32Array): void {
+    if (other.length > this.offsets.length) {
+      const grown = new Uint32Array(other.length);
+      grown.set(this.offsets);
+      this.offsets = grown;
+    }
+    const mine = this.offsets;
+    for (let id = 0; id < other.length; id++) {
+      const value = other[id];
+      if (value === NO_OFFSET) continue;
+      if (mine[id] === NO_OFFSET) {
+        mine[id] = value;
+        this.size++;
+      } else {
+        mine[id] = DEFERRED;
+        this.exact = false;
+      }
+    }
   }
 
   /**
    * The index of a regular text in memory another thread can read, so that it reads the same
-   * bytes without scanning them again (bolt-thread.ts): offsets, and per type its code, count
+   * bytes without scanning them again (reader-thread.ts): offsets, and per type its code, count
    * and ids. Null for irregular text, which is read in one thread.
    */
   snapshot(): StepTextIndex | null {
@@ -248,6 +341,11 @@ export class StepText {
 
   /** offset null: the statement is there but web-ifc must read it. */
   private record(id: number, offset: number | null): void {
+    this.recordValue(id, offset === null || offset + 1 >= DEFERRED ? DEFERRED : offset + 1);
+  }
+
+  /** Records an id with its stored value (offset + 1, or DEFERRED); a repeated id is DEFERRED. */
+  private recordValue(id: number, stored: number): void {
     const dense = id < DENSE_LIMIT && id <= this.bytes.length;
     if (dense && id >= this.offsets.length) {
       let len = this.offsets.length;
@@ -260,21 +358,22 @@ export class StepText {
     if (previous === NO_OFFSET) this.size++;
     else this.exact = false;
     // A repeated id is read the way web-ifc reads it, whichever that is.
-    const value = previous !== NO_OFFSET || offset === null || offset + 1 >= DEFERRED ? DEFERRED : offset + 1;
+    const value = previous !== NO_OFFSET ? DEFERRED : stored;
     if (dense) this.offsets[id] = value;
     else this.sparse.set(id, value);
   }
 
-  private scan(): void {
+  /** Indexes the statements starting at `from` up to the first one starting at or after `to`; returns where it stopped. */
+  private scan(from: number, to: number): number {
     const b = this.bytes;
     const text = this.text;
     const n = b.length;
-    let i = 0;
+    let i = from;
     // Next ';', quote and '/' at or after the statement being read (-1: none left in the file).
-    let semi = text.indexOf(SEMI, 0);
-    let quote = text.indexOf(QUOTE, 0);
-    let slash = text.indexOf(SLASH, 0);
-    while (i < n) {
+    let semi = text.indexOf(SEMI, from);
+    let quote = text.indexOf(QUOTE, from);
+    let slash = text.indexOf(SLASH, from);
+    while (i < to) {
       // Start of a statement: skip blanks and comments.
       let c = b[i];
       while (i < n && (isSpace(c) || (c === SLASH && b[i + 1] === STAR))) {
@@ -285,7 +384,7 @@ export class StepText {
         } else i++;
         c = b[i];
       }
-      if (i >= n) break;
+      if (i >= to) break;
       let id = -1;
       let start = -1;
       if (c === HASH) {
@@ -346,6 +445,7 @@ export class StepText {
       }
       i++;
     }
+    return i;
   }
 
   private offsetOf(id: number): number {
@@ -661,7 +761,7 @@ export class StepText {
         if (k === entry.bytes.length) return entry;
       }
     }
-    const entry: NameEntry = { bytes: b.slice(s, e), code: this.codeOf(this.text.toString('latin1', s, e)), ids: null };
+    const entry: NameEntry = { bytes: b.slice(s, e), start: s, hash: h, code: this.codeOf(this.text.toString('latin1', s, e)), ids: null };
     if (known) known.push(entry);
     else this.names.set(h, [entry]);
     return entry;

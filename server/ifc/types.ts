@@ -43,10 +43,11 @@ export interface ReadOptions {
    */
   webIfcFirst?: boolean;
   /**
-   * true: bolt groups are read in a thread of their own while members are read (text-first reads
-   * only); false: in this thread after the members. Default: true from 16 MB up (read-model.ts).
+   * true: a second thread indexes the second half of the text and reads the bolt groups while
+   * members are read (text-first reads only, reader-thread.ts); false: all in this thread.
+   * Default: true from 16 MB up (read-model.ts).
    */
-  boltsInThread?: boolean;
+  readerThread?: boolean;
   /** Filled in by readIfcModel when given: where the time went, for benchmarks. */
   stats?: ReadStats;
 }

@@ -6,8 +6,8 @@ register();
 const importTask = import('./run-import-task.ts');
 const importForStore = import('./streamed-import-task.ts');
 const geometryTask = import('./run-geometry-task.ts');
-// The bolt thread loads while this one waits for its first job (read-model.ts uses it from 16 MB up).
-void import('../ifc/bolt-thread.ts').then((m) => m.prewarmBoltThread());
+// The reader thread loads while this one waits for its first job (read-model.ts uses it from 16 MB up).
+void import('../ifc/reader-thread.ts').then((m) => m.prewarmReaderThread());
 
 export default async function importWorker(task) {
   if (task.job === 'geometry') return (await geometryTask).runGeometryTask(task);

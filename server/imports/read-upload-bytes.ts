@@ -79,7 +79,7 @@ async function readFileShared(path: string): Promise<Uint8Array> {
 
 /**
  * The IFC bytes of an uploaded file, from a plain .ifc or the first .ifc inside a .ifczip.
- * `shared`: in a SharedArrayBuffer, for a reader that hands them to another thread (read-model.ts, bolt-thread.ts).
+ * `shared`: in a SharedArrayBuffer, for a reader that hands them to another thread (read-model.ts, reader-thread.ts).
  */
 export async function readUploadBytes(path: string, kind: 'ifc' | 'ifczip', inflateLimitBytes: number, options: { shared?: boolean } = {}): Promise<Uint8Array> {
   const shared = options.shared ?? false;

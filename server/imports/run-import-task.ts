@@ -57,7 +57,7 @@ export async function readForChecks(task: ImportTask, post: Post, timings: Recor
 
 /** Its own function so that the file's bytes are out of reach once the model is extracted. */
 async function readAndExtract(task: ImportTask, post: Post): Promise<{ model: ExtractedModel; fileBytes: number }> {
-  // Shared: the bolt thread then reads the same memory (bolt-thread.ts).
+  // Shared: the reader thread then reads the same memory (reader-thread.ts).
   const bytes = await readUploadBytes(task.filePath, task.kind, task.inflateLimitBytes, { shared: true });
   const model = await readIfcModel(bytes, {
     progress: (phase, fraction) => post(phase === 'reading' ? 'reading' : 'extracting', fraction),

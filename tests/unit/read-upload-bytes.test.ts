@@ -1,11 +1,11 @@
-// The import reads an upload into shared memory so that the bolt thread reads the same bytes
-// instead of a copy (server/imports/read-upload-bytes.ts, server/ifc/bolt-thread.ts).
+// The import reads an upload into shared memory so that the reader thread reads the same bytes
+// instead of a copy (server/imports/read-upload-bytes.ts, server/ifc/reader-thread.ts).
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { readUploadBytes } from '../../server/imports/read-upload-bytes.ts';
-import { shareable } from '../../server/ifc/bolt-thread.ts';
+import { shareable } from '../../server/ifc/reader-thread.ts';
 import { makeZip } from '../support/make-zip.ts';
 
 const SAMPLE = path.resolve(import.meta.dirname, '../../samples/kestrel-yard-shed.ifc');
