@@ -3,7 +3,7 @@
  * and 20,000 members (the 20,000-member file is over 100 MB; --big adds 50,000 members,
  * about 380 MB). Run: npm run bench:import [-- --big] [-- --sizes=1000,5000] [-- --repeat=N]
  * [-- --profile] (CPU profiles of the in-process runs into .data/bench/profiles/)
- * [-- --app-profile=DIR] (CPU profiles of the app process in the whole imports) [-- --quick] (whole imports only: no wait for the 3D geometry, no in-process runs; results not written).
+ * [-- --app-profile=DIR] (CPU profiles of the app process in the whole imports) [-- --quick] (whole imports only: no wait for the 3D geometry after the last, no in-process runs; results not written).
  *
  * Every measurement runs in a fresh child process, so the numbers do not include this
  * script's own memory. Generated models are cached in .data/bench/ keyed by the generator's
@@ -303,9 +303,11 @@ async function main(): Promise<void> {
           console.log(`whole ${n} #${i + 1}: ${fmtMs(ms)}, app CPU ${fmtMs(cpu)} (worker read+extract ${fmtMs(tm.readAndExtractMs ?? NaN)}, check ${fmtMs(tm.checkMs ?? NaN)}${tm.storeWaitMs !== undefined ? ` of which waiting for the store ${fmtMs(tm.storeWaitMs)}` : ''}${tm.geometryMs !== undefined ? `, display geometry ${fmtMs(tm.geometryMs)}` : ''}), MariaDB CPU ${fmtMs(dbCpu)}, app RSS ${fmtMb(before)} → peak ${fmtMb(peak)} (VmHWM ${fmtMb(runs.at(-1)!.hwm)})`);
           if (flag('timeline')) console.log(`  ${timeline.join(' → ')}`);
           console.log(`  app CPU by thread: ${Object.entries(threadCpu).filter(([, ms]) => ms >= 50).sort((a, b) => b[1] - a[1]).map(([name, ms]) => `${name} ${fmtMs(ms)}`).join(', ')}`);
-          if (flag('quick')) continue;
-          // The 3D geometry is built after the results are stored; let it finish so the next import starts on an idle app.
+          // The 3D geometry is built after the results are stored; let it finish so the next import
+          // starts on an idle app (a quick run waits only when another import follows).
+          if (flag('quick') && i + 1 >= repeatFor(n)) continue;
           const geo = await waitForGeometry(app.url, session, projectId, up.revisionId);
+          if (flag('quick')) continue;
           if (geo) {
             runs.at(-1)!.geometryAfter = geo.ms;
             console.log(`  3D geometry ${geo.state} ${fmtMs(geo.ms)} after the results`);

@@ -1,10 +1,11 @@
 /**
- * Bolt groups read on their own from a file's text: what the bolt thread does while the
+ * Bolt groups read on their own from a file's text: what the reader thread does while the
  * reading thread extracts members (reader-thread.ts, decision 0014). The same steps as
- * extractModel before and during its bolt phase — units, relations, fasteners — so the groups
- * and their warnings are the ones a read in one thread gives. Gives up (ok: false) wherever the
- * reading thread would do more than read the text: irregular text, a line that needs web-ifc, a
- * file without a project; the reading thread then reads the bolt groups itself.
+ * extractModel before and during its bolt phase — units, the relations bolt groups read,
+ * fasteners — so the groups and their warnings are the ones a read in one thread gives. It reads
+ * the text as the reading thread indexed it (regular text only), and gives up (ok: false)
+ * wherever the reading thread would do more than read the text — a line that needs web-ifc, a
+ * file without a project — and the reading thread then reads the bolt groups itself.
  */
 import * as W from 'web-ifc';
 import { type BoltWork, extractBoltGroup, fastenerIds } from './bolts.ts';
@@ -45,7 +46,8 @@ export async function readBoltGroups(request: BoltGroupsRequest): Promise<BoltGr
     const projectId = ctx.idsOfType(W.IFCPROJECT)[0];
     if (projectId === undefined) return { ok: false, message: 'no project' };
     ctx.units = readUnits(ctx, projectId);
-    const ix = buildRelationsIndex(ctx);
+    // Bolt groups read property sets and type objects only (bolts.ts, property-sets.ts).
+    const ix = buildRelationsIndex(ctx, 'properties');
     // The reading thread has the warnings of units and relations already; only the bolt phase's go back.
     ctx.warnings = new WarningCollector();
     const bolts: BoltWork[] = [];

@@ -51,7 +51,11 @@ function push(map: Map<number, number[]>, key: number | undefined, value: number
   } else map.set(key, [value]);
 }
 
-export function buildRelationsIndex(ctx: ModelContext): RelationsIndex {
+/**
+ * `scope` 'properties': only property sets and type objects (psets, typeOf) — what reading bolt
+ * groups asks of the index (bolt-groups-read.ts); the other maps stay empty.
+ */
+export function buildRelationsIndex(ctx: ModelContext, scope: 'all' | 'properties' = 'all'): RelationsIndex {
   const ix: RelationsIndex = {
     psets: new Map(), typeOf: new Map(), materials: new Map(), containedIn: new Map(),
     parentOf: new Map(), partsOf: new Map(), openings: new Map(), realizes: new Map(),
@@ -75,6 +79,7 @@ export function buildRelationsIndex(ctx: ModelContext): RelationsIndex {
   for (const typeId of new Set(ix.typeOf.values())) {
     for (const p of refs(ctx.line(typeId)?.HasPropertySets)) push(ix.psets, typeId, p);
   }
+  if (scope === 'properties') return ix;
   for (const id of ctx.idsOfType(W.IFCRELASSOCIATESMATERIAL)) {
     const material = ctx.refAt(id, ASSOCIATES_MATERIAL, 5, 'RelatingMaterial');
     for (const o of ctx.refsAt(id, ASSOCIATES_MATERIAL, 4, 'RelatedObjects')) push(ix.materials, o, material);

@@ -11,8 +11,8 @@ export const RELEASE_FROM_BYTES = 32 * 1024 * 1024;
  * in this thread (files read the usual way, or a line only web-ifc could read), its wasm memory
  * has grown to hold it and would stay that size through the checks and every later import;
  * after a large file the instance is dropped, so that memory goes with the next full collection
- * and the checks do not sit on top of it. Since decision 0010 web-ifc usually holds a large model
- * in a thread of its own, and the collection then mostly gives back the file's bytes and text
+ * and the checks do not sit on top of it. Since decision 0014 a regular large file is read
+ * without web-ifc's model, and the collection then mostly gives back the file's bytes and text
  * index. A small file keeps the instance (a new one costs about 50 ms). Returns whether it was dropped.
  * Measured on the 154 MB benchmark model in the app: 1,306 MB → 776 MB between extraction and
  * checks (the file's bytes and text go in the same collection), peak 1,806 → 1,332 MB, for
