@@ -7,7 +7,7 @@
  * waits for the next request; one stopped, failing or ending without an answer is ended, and
  * answers { ok: false } — the reading thread then does that part itself.
  */
-import { Worker } from 'node:worker_threads';
+import { Worker, resourceLimits } from 'node:worker_threads';
 import type { IndexRestAnswer, ReaderThreadAnswer, ReaderThreadRequest } from './reader-thread-tasks.ts';
 import type { BoltGroupsAnswer } from './bolt-groups-read.ts';
 
@@ -21,7 +21,10 @@ export interface ReaderThreadWork<A> {
 const idle: Worker[] = [];
 
 function readerThread(): Worker {
-  return idle.pop() ?? new Worker(new URL('./reader-thread.mjs', import.meta.url), { resourceLimits: { maxYoungGenerationSizeMb: 96 } });
+  // Under the same old-generation limit as the thread that asks (an import worker's memory
+  // limit): a thread out of memory ends, and the reading thread does its part itself.
+  const oldLimit = resourceLimits.maxOldGenerationSizeMb;
+  return idle.pop() ?? new Worker(new URL('./reader-thread.mjs', import.meta.url), { resourceLimits: { maxYoungGenerationSizeMb: 96, ...(oldLimit ? { maxOldGenerationSizeMb: oldLimit } : {}) } });
 }
 
 /**
