@@ -49,7 +49,7 @@ export function checkHeader(bytes: Uint8Array): ReturnType<typeof inspectHeader>
 }
 
 /** web-ifc's failure to open a file whose header passed, as the error every read gives. */
-export function openFailure(h: { truncated: boolean }, message?: string, cause?: unknown): IfcReadError {
+function openFailure(h: { truncated: boolean }, message?: string, cause?: unknown): IfcReadError {
   return new IfcReadError(h.truncated ? 'ifc.truncated' : 'ifc.parse-failed', message, cause === undefined ? undefined : { cause });
 }
 
