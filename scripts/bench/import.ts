@@ -18,7 +18,7 @@ import { fileURLToPath } from 'node:url';
 import { serialize } from 'node:v8';
 import {
   BENCH_DIR, ROOT, cpuMsOf, firstProjectId, median, fmtMb, fmtMs, fmtSpread, peakRssOf, resetPeakRss, rssOf, sampleRss, sampleThreadCpu,
-  signIn, spread, startAppProcess, startThrowawayDb, table, uploadFile, waitForGeometry, waitForRevision, writeResults, type Spread,
+  signIn, spread, startAppProcess, waitForIdleProcess, startThrowawayDb, table, uploadFile, waitForGeometry, waitForRevision, writeResults, type Spread,
 } from './lib/bench-support.ts';
 
 const SELF = fileURLToPath(import.meta.url);
@@ -305,12 +305,15 @@ async function main(): Promise<void> {
           console.log(`  app CPU by thread: ${Object.entries(threadCpu).filter(([, ms]) => ms >= 50).sort((a, b) => b[1] - a[1]).map(([name, ms]) => `${name} ${fmtMs(ms)}`).join(', ')}`);
           // The 3D geometry is built after the results are stored; let it finish so the next import
           // starts on an idle app (a quick run waits only when another import follows).
-          if (flag('quick') && i + 1 >= repeatFor(n)) continue;
+          if (flag('quick') && i + 1 >= repeatFor(n) && n === sizes.at(-1)) continue;
           const geo = await waitForGeometry(app.url, session, projectId, up.revisionId);
+          // "Ready" comes before the app is done with the geometry's aftermath (collections that
+          // give web-ifc's memory back, the stored file): the next import waits until the app is idle.
+          const settledMs = await waitForIdleProcess(app.pid);
           if (flag('quick')) continue;
           if (geo) {
             runs.at(-1)!.geometryAfter = geo.ms;
-            console.log(`  3D geometry ${geo.state} ${fmtMs(geo.ms)} after the results`);
+            console.log(`  3D geometry ${geo.state} ${fmtMs(geo.ms)} after the results; app idle ${fmtMs(settledMs)} later`);
           }
         }
         const b = bare.get(n)!;

@@ -108,6 +108,22 @@ export function cpuMsOf(pid: number): number {
   return (Number(fields[11]) + Number(fields[12])) * 10;
 }
 
+/**
+ * Waits until a process uses under 5 % of a core over half a second (at most `timeoutMs`);
+ * returns how long that took, ms.
+ */
+export async function waitForIdleProcess(pid: number, timeoutMs = 15_000): Promise<number> {
+  const t0 = performance.now();
+  let last = cpuMsOf(pid);
+  while (performance.now() - t0 < timeoutMs) {
+    await sleep(500);
+    const now = cpuMsOf(pid);
+    if (now - last < 25) break;
+    last = now;
+  }
+  return performance.now() - t0;
+}
+
 /** The kernel's own high-water mark of RSS (VmHWM), reset with resetPeakRss. */
 export function peakRssOf(pid: number): number {
   const m = /VmHWM:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'));
