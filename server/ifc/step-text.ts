@@ -141,7 +141,10 @@ export class StepText {
    */
   static splitPoint(bytes: Uint8Array): number | null {
     const text = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-    for (let at = text.indexOf(';\n#', bytes.length >> 1, 'latin1'); at >= 0; at = text.indexOf(';\n#', at + 1, 'latin1')) return at + 2;
+    // Lines may end in \n or \r\n.
+    for (let at = text.indexOf('\n#', bytes.length >> 1, 'latin1'); at > 0; at = text.indexOf('\n#', at + 1, 'latin1')) {
+      if (bytes[at - 1] === SEMI || (bytes[at - 1] === 0x0d && bytes[at - 2] === SEMI)) return at + 1;
+    }
     return null;
   }
 

@@ -66,6 +66,14 @@ describe('the reader thread', () => {
     expect(rest.ok).toBe(true);
     viaThread.finishFrom(rest.ok ? rest.rest : null);
     expect(indexView(viaThread, whole.size)).toEqual(indexView(whole, whole.size));
+    // Lines ending in \r\n split as well.
+    const crlf = shareable(new Uint8Array(Buffer.from(Buffer.from(bytes).toString('latin1').replace(/\n/g, '\r\n'), 'latin1')));
+    const at = StepText.splitPoint(crlf)!;
+    expect(Buffer.from(crlf.subarray(at - 3, at + 1)).toString('latin1')).toBe(';\r\n#');
+    const crlfParts = StepText.indexUpTo(crlf, at, f);
+    crlfParts.finishFrom(StepText.indexRest(crlf, at, f));
+    const crlfWhole = StepText.index(crlf, f);
+    expect(indexView(crlfParts, crlfWhole.size)).toEqual(indexView(crlfWhole, crlfWhole.size));
   });
 
   it('scans the rest itself when the split falls inside a string, and sees an id repeated across the parts', async () => {
