@@ -6,8 +6,9 @@ register();
 const importTask = import('./run-import-task.ts');
 const importForStore = import('./streamed-import-task.ts');
 const geometryTask = import('./run-geometry-task.ts');
-// The reader thread loads while this one waits for its first job (read-model.ts uses it from 16 MB up).
-void import('../ifc/reader-thread.ts').then((m) => m.prewarmReaderThread());
+// The reader thread loads while this one waits for its first job (read-model.ts uses it from 16 MB up;
+// should loading fail here, the first large read starts one, or reads alone).
+void import('../ifc/reader-thread.ts').then((m) => m.prewarmReaderThread(), () => undefined);
 
 export default async function importWorker(task) {
   if (task.job === 'geometry') return (await geometryTask).runGeometryTask(task);
