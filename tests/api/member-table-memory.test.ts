@@ -2,9 +2,6 @@
 // These tests hold it to the SQL it replaced, query by query, and prove that a change made
 // through another app process sharing the database is seen at once.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { memberQuerySchema, MEMBER_SORT_KEYS, type MemberQuery } from '../../shared/api/members';
 import { MemberModel } from '../../server/db/models/member';
 import { MemberForceModel } from '../../server/db/models/member-force';
@@ -13,13 +10,10 @@ import { checkMemberRaw, type MemberCheckInputRaw } from '../../shared/engine';
 import type { MemberDetail } from '../../shared/api/member-detail';
 import { memberOrder, memberWhere } from '../../server/features/members/member-query';
 import { presentMemberRow } from '../../server/features/members/member-presenter';
-import { startTestApp, type TestApp } from '../support/test-app';
+import type { TestApp } from '../support/test-app';
 import { signIn, DEMO, type Caller } from '../support/api-client';
-import { importSample } from '../support/imports';
+import { appWithSample } from '../support/imports';
 import { sharedEnvOf, spawnApp, type AppProcess } from '../support/spawn-app';
-
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
-const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
 
 let app: TestApp;
 let other: AppProcess | undefined;
@@ -28,11 +22,7 @@ let revisionId: number;
 let base: string;
 
 beforeAll(async () => {
-  app = await startTestApp({ IMPORT_POLL_MS: '100' });
-  engineer = await signIn(app.url, DEMO.engineer);
-  const ids = await importSample(engineer, SAMPLE);
-  revisionId = ids.revisionId;
-  base = `/api/projects/${ids.projectId}/revisions/${revisionId}`;
+  ({ app, engineer, revisionId, base } = await appWithSample());
 }, 120_000);
 afterAll(async () => {
   await other?.stop();

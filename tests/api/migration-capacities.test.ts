@@ -1,18 +1,12 @@
 // Migration 0007 keeps every stored result: results stored whole (before it) become capacities
 // of their own, read back through withForce to the same answers; its down puts them back whole.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { QueryTypes } from 'sequelize';
-import { startTestApp, type TestApp } from '../support/test-app';
-import { signIn, DEMO, type Caller } from '../support/api-client';
-import { importSample } from '../support/imports';
+import type { TestApp } from '../support/test-app';
+import type { Caller } from '../support/api-client';
+import { appWithSample } from '../support/imports';
 import { MemberModel } from '../../server/db/models/member';
 import { createMigrator } from '../../server/db/migrate';
-
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
-const SAMPLE = readFileSync(path.join(root, 'samples/kestrel-yard-shed.ifc'));
 
 let app: TestApp;
 let engineer: Caller;
@@ -30,11 +24,7 @@ async function sheets(): Promise<Record<string, unknown>> {
 }
 
 beforeAll(async () => {
-  app = await startTestApp({ IMPORT_POLL_MS: '100' });
-  engineer = await signIn(app.url, DEMO.engineer);
-  const imported = await importSample(engineer, SAMPLE);
-  revisionId = imported.revisionId;
-  base = `/api/projects/${imported.projectId}/revisions/${revisionId}`;
+  ({ app, engineer, revisionId, base } = await appWithSample());
 }, 120_000);
 afterAll(async () => {
   await app?.stop();

@@ -1,10 +1,14 @@
 /** Upload-and-wait helpers and direct database reads shared by the security and reliability suites. */
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { existsSync, readFileSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 import mariadb from 'mariadb';
-import type { Caller } from './api-client';
+import { DEMO, signIn, type Caller } from './api-client';
+import { startTestApp, type TestApp } from './test-app';
 import { waitFor } from './wait-for';
 import { testDbServer } from './test-db';
+
+/** The demo sample (IFC4) as the suites upload it. */
+export const SAMPLE_IFC = readFileSync(path.resolve(import.meta.dirname, '../../samples/kestrel-yard-shed.ifc'));
 
 export async function uploadFile(caller: Caller, projectId: number, bytes: Buffer | Uint8Array, fileName: string, modelName?: string) {
   const req = caller.agent.post(`/api/projects/${projectId}/uploads`).set('X-CSRF-Token', caller.csrf).attach('file', Buffer.from(bytes), fileName);
@@ -61,7 +65,7 @@ export async function revisionRowsJson(dbName: string, revisionId: number): Prom
  * Uploads the demo sample to the caller's first project and waits until it is checked
  * (and its 3D geometry built). Fails the calling test when either step does not succeed.
  */
-export async function importSample(caller: Caller, sample: Buffer): Promise<{ projectId: number; revisionId: number }> {
+export async function importSample(caller: Caller, sample: Buffer = SAMPLE_IFC): Promise<{ projectId: number; revisionId: number }> {
   const projectId = (await caller.call('get', '/api/projects')).body.projects[0].id as number;
   const up = await uploadFile(caller, projectId, sample, 'kestrel-yard-shed.ifc');
   if (up.status !== 201) throw new Error(`sample upload answered ${up.status}: ${JSON.stringify(up.body)}`);
@@ -69,4 +73,15 @@ export async function importSample(caller: Caller, sample: Buffer): Promise<{ pr
   const done = await importEnded(caller, projectId, revisionId);
   if (done.body.status !== 'done') throw new Error(`sample import ended ${done.body.status}: ${JSON.stringify(done.body.failure)}`);
   return { projectId, revisionId };
+}
+
+/**
+ * A test app whose demo engineer has imported the sample: how a suite about one checked
+ * revision starts. `base` is the revision's API path.
+ */
+export async function appWithSample(env: Record<string, string> = { IMPORT_POLL_MS: '100' }): Promise<{ app: TestApp; engineer: Caller; projectId: number; revisionId: number; base: string }> {
+  const app = await startTestApp(env);
+  const engineer = await signIn(app.url, DEMO.engineer);
+  const { projectId, revisionId } = await importSample(engineer);
+  return { app, engineer, projectId, revisionId, base: `/api/projects/${projectId}/revisions/${revisionId}` };
 }
