@@ -5,4 +5,7 @@ cd "$(dirname "$0")/.."
 source scripts/lib/bootstrap.sh
 ensure_mariadb
 ensure_node_modules
+# Two malloc arenas instead of eight per core: the app's threads (requests, import worker, reader
+# thread, libuv) otherwise each keep freed memory in an arena of their own (decision 0016).
+export MALLOC_ARENA_MAX="${MALLOC_ARENA_MAX:-2}"
 exec node --import tsx scripts/start.ts "$@"

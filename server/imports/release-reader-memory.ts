@@ -2,8 +2,16 @@ import v8 from 'node:v8';
 import vm from 'node:vm';
 import { currentIfcApi, releaseIfcApi } from '../ifc/ifc-api';
 
-/** Files from this size up leave web-ifc's memory large enough to be worth giving back. */
+/** Files from this size up leave web-ifc's memory large enough to be worth giving back after extraction. */
 export const RELEASE_FROM_BYTES = 32 * 1024 * 1024;
+
+/**
+ * The same after the display geometry, which opens every file with web-ifc: its wasm memory
+ * grows to hold the model and its meshes (about 200 MB for a 7 MB file) and never shrinks, so the
+ * worker kept that between imports. Below this (the samples) the instance is kept: a new one
+ * costs about 50 ms, which the next geometry then pays after its results are stored.
+ */
+export const RELEASE_AFTER_GEOMETRY_FROM_BYTES = 4 * 1024 * 1024;
 
 /**
  * Called once a model is extracted, before its members are checked, and after its display
@@ -41,7 +49,7 @@ function fullCollection(): void {
 }
 
 /**
- * The same after a display-geometry build, waiting until the instance is really gone: the
+ * The same after a display-geometry build (from RELEASE_AFTER_GEOMETRY_FROM_BYTES), waiting until the instance is really gone: the
  * meshes web-ifc handed over hold it until their finalisers have run, and each round of
  * finalisers needs a collection and a turn of the event loop (four rounds after the demo
  * model). Collects at most `rounds` times; returns whether the instance went.
@@ -49,7 +57,7 @@ function fullCollection(): void {
 export async function releaseAfterGeometry(fileBytes: number, rounds = 10): Promise<boolean> {
   // No instance: nothing to give back (and none is made just to drop it). The instance is not
   // kept in a variable here: this frame lives through the collections and would hold it.
-  if (fileBytes < RELEASE_FROM_BYTES || !currentIfcApi()) return false;
+  if (fileBytes < RELEASE_AFTER_GEOMETRY_FROM_BYTES || !currentIfcApi()) return false;
   const gone = await watchInstance();
   releaseIfcApi();
   for (let i = 0; i < rounds && !gone.done; i++) {

@@ -7,7 +7,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { getIfcApi } from '../../server/ifc/ifc-api';
 import { readIfcModel } from '../../server/ifc/read-model';
-import { RELEASE_FROM_BYTES, releaseReaderMemory } from '../../server/imports/release-reader-memory';
+import { RELEASE_AFTER_GEOMETRY_FROM_BYTES, RELEASE_FROM_BYTES, releaseReaderMemory } from '../../server/imports/release-reader-memory';
 import { runGeometryTask } from '../../server/imports/run-geometry-task';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
@@ -40,13 +40,29 @@ describe('web-ifc memory after a large model', () => {
   });
 });
 
-describe('web-ifc memory after the display geometry of a large file', () => {
+describe('web-ifc memory after the display geometry of a file of some size', () => {
+  it('keeps the instance after the geometry of a small file (the samples)', async () => {
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'gl-geometry-keep-'));
+    const file = path.join(dir, 'sample.ifc');
+    writeFileSync(file, SAMPLE);
+    try {
+      expect(SAMPLE.length).toBeLessThan(RELEASE_AFTER_GEOMETRY_FROM_BYTES);
+      const before = await getIfcApi();
+      const outcome = await runGeometryTask({ job: 'geometry', filePath: file, kind: 'ifc', inflateLimitBytes: 1e9, timeBudgetMs: 60_000 });
+      expect(outcome.problem).toBeNull();
+      for (let i = 0; i < 5; i++) await new Promise((resolve) => setTimeout(resolve, 0));
+      expect(await getIfcApi()).toBe(before);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  }, 60_000);
+
   it('drops the instance once the geometry is built, and it is collected', async () => {
     // The sample followed by blanks to the size from which memory is given back: web-ifc reads
     // past them, and the geometry is the sample's.
     const dir = mkdtempSync(path.join(os.tmpdir(), 'gl-geometry-release-'));
     const file = path.join(dir, 'padded.ifc');
-    writeFileSync(file, Buffer.concat([Buffer.from(SAMPLE), Buffer.alloc(RELEASE_FROM_BYTES, 0x20)]));
+    writeFileSync(file, Buffer.concat([Buffer.from(SAMPLE), Buffer.alloc(RELEASE_AFTER_GEOMETRY_FROM_BYTES, 0x20)]));
     try {
       let collected = false;
       const registry = new FinalizationRegistry<null>(() => (collected = true));

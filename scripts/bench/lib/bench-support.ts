@@ -57,6 +57,8 @@ export async function startAppProcess(dbEnv: Record<string, string>, extraEnv: R
     execArgv: ['--import', 'tsx', ...nodeArgs],
     env: {
       ...process.env,
+      // As scripts/start.sh runs the app (decision 0016).
+      MALLOC_ARENA_MAX: process.env.MALLOC_ARENA_MAX ?? '2',
       NODE_ENV: 'test',
       HOST: '127.0.0.1',
       PORT: '0',
