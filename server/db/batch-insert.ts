@@ -30,12 +30,14 @@ const isInt32 = (v: number) => Number.isInteger(v) && v >= -2147483648 && v < 21
  * in one row and not in the next, a null before a number, and — in driver 3.5.4 — every Date,
  * which it writes as DATETIME but then compares with TIMESTAMP. An import's rows all carry a
  * Date, so each row went as its own command (60,000 writes to the socket for 20,000 members).
- * Dates become their UTC text, as Sequelize (timezone '+00:00') writes them; the numbers of a
- * column that mixes whole and fractional numbers or nulls become their shortest round-trip
- * text, which MariaDB reads back to the same double (tests/api/batch-insert.test.ts).
+ * Dates become their UTC text, as Sequelize (timezone '+00:00') writes them; booleans become 1
+ * and 0, as TINYINT(1) stores them; the numbers of a column that mixes whole and fractional
+ * numbers or nulls become their shortest round-trip text, which MariaDB reads back to the same
+ * double (tests/api/batch-insert.test.ts).
  * Non-finite numbers are left as they are (MariaDB refuses them either way).
  */
 export function alikeRows(rows: unknown[][]): unknown[][] {
+  rows = rows.map((row) => row.map((v) => (typeof v === 'boolean' ? Number(v) : v)));
   const width = rows[0]?.length ?? 0;
   const asText: boolean[] = [];
   for (let c = 0; c < width; c++) {
@@ -51,11 +53,14 @@ export function alikeRows(rows: unknown[][]): unknown[][] {
     }
     asText.push((whole && fractional) || ((whole || fractional) && nulls));
   }
-  return rows.map((row) => row.map((v, c) => {
-    if (v instanceof Date) return utcText(v);
-    if (asText[c] && typeof v === 'number' && Number.isFinite(v)) return String(v);
-    return v;
-  }));
+  for (const row of rows) {
+    for (let c = 0; c < width; c++) {
+      const v = row[c];
+      if (v instanceof Date) row[c] = utcText(v);
+      else if (asText[c] && typeof v === 'number' && Number.isFinite(v)) row[c] = String(v);
+    }
+  }
+  return rows;
 }
 
 /** 'YYYY-MM-DD hh:mm:ss.mmm' in UTC. */

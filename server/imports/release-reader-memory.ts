@@ -49,10 +49,11 @@ function fullCollection(): void {
 }
 
 /**
- * The same after a display-geometry build (from RELEASE_AFTER_GEOMETRY_FROM_BYTES), waiting until the instance is really gone: the
- * meshes web-ifc handed over hold it until their finalisers have run, and each round of
- * finalisers needs a collection and a turn of the event loop (four rounds after the demo
- * model). Collects at most `rounds` times; returns whether the instance went.
+ * The same after a display-geometry build (from RELEASE_AFTER_GEOMETRY_FROM_BYTES), waiting
+ * until the instance is really gone: the meshes web-ifc handed over hold it until their
+ * finalisers have run, and each round of finalisers needs a collection and a turn of the event
+ * loop (four rounds after the demo model). Collects at most `rounds` times; returns whether the
+ * instance went.
  */
 export async function releaseAfterGeometry(fileBytes: number, rounds = 10): Promise<boolean> {
   // No instance: nothing to give back (and none is made just to drop it). The instance is not

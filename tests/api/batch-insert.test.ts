@@ -48,13 +48,14 @@ describe('batchInsert through the app connection', () => {
   // Driver 3.5.4 starts a new bulk command at every change of a value's type from the first
   // row's (and at every Date); alikeRows keeps a batch one command (decision 0015).
   it('sends a batch of dates, nulls and mixed numbers as one command, every value intact', async () => {
-    await sequelize.query('CREATE TABLE batch_kinds (id INT UNSIGNED AUTO_INCREMENT PRIMARY KEY, whole INT NULL, x DOUBLE NULL, flag TINYINT(1) NOT NULL, label VARCHAR(40) NULL, at DATETIME(3) NOT NULL)');
+    await sequelize.query('CREATE TABLE batch_kinds (id INT UNSIGNED AUTO_INCREMENT PRIMARY KEY, whole INT NULL, x DOUBLE NULL, flag TINYINT(1) NOT NULL, maybe TINYINT(1) NULL, label VARCHAR(40) NULL, at DATETIME(3) NOT NULL)');
     const at = new Date(Date.UTC(2026, 11, 2, 23, 59, 58, 765));
     const doubles = [0.1, 1 / 3, -2.5e-300, 6.02214076e23, 1e21, 2 ** 31, -(2 ** 31) - 1, 123456789.00000001, 75000, 0];
     const rows = Array.from({ length: 600 }, (_, i) => [
       i % 7 === 0 ? null : i,
       i % 5 === 0 ? null : doubles[i % doubles.length] * (i % 2 ? 1 : -1) + (i % 3 === 0 ? 0 : i / 7),
       i % 2 === 0,
+      i % 3 === 0 ? null : i % 2 === 1,
       i % 4 === 0 ? null : `row ${i}`,
       at,
     ]);
@@ -66,14 +67,14 @@ describe('batchInsert through the app connection', () => {
         return Number(row.Value);
       };
       const before = await count();
-      await batchInsert(transaction, 'batch_kinds', ['whole', 'x', 'flag', 'label', 'at'], rows);
+      await batchInsert(transaction, 'batch_kinds', ['whole', 'x', 'flag', 'maybe', 'label', 'at'], rows);
       commands = (await count()) - before;
     });
     expect(commands).toBe(1);
-    const stored = await sequelize.query<{ whole: number | null; x: number | null; flag: number; label: string | null; at: string }>(
-      "SELECT whole, x, flag, label, DATE_FORMAT(at, '%Y-%m-%d %H:%i:%s.%f') AS at FROM batch_kinds ORDER BY id", { type: QueryTypes.SELECT },
+    const stored = await sequelize.query<{ whole: number | null; x: number | null; flag: number; maybe: number | null; label: string | null; at: string }>(
+      "SELECT whole, x, flag, maybe, label, DATE_FORMAT(at, '%Y-%m-%d %H:%i:%s.%f') AS at FROM batch_kinds ORDER BY id", { type: QueryTypes.SELECT },
     );
-    expect(stored.map((r) => [r.whole, r.x, r.flag === 1, r.label])).toEqual(rows.map((r) => r.slice(0, 4)));
+    expect(stored.map((r) => [r.whole, r.x, r.flag === 1, r.maybe === null ? null : r.maybe === 1, r.label])).toEqual(rows.map((r) => r.slice(0, 5)));
     // Stored as UTC, as Sequelize writes dates (timezone '+00:00').
     expect(new Set(stored.map((r) => r.at))).toEqual(new Set(['2026-12-02 23:59:58.765000']));
   });
