@@ -1,6 +1,7 @@
 /**
- * The export formats: file extension, content type and writer of each. Routes and the
- * command line both go through `writeExport`, so a format behaves the same everywhere.
+ * The writer of each export format (names and content types: export-format-info.ts). The export
+ * worker threads and the command line both go through `writeExport`, so a format behaves the
+ * same everywhere.
  */
 import type { ExportBundle } from './export-bundle';
 import { writeCsv } from './csv-export';
@@ -8,17 +9,7 @@ import { writeXlsx } from './xlsx-export';
 import { writePdfReport } from './pdf-report';
 import { writeBcf } from './bcf-export';
 import { writeIfcWithResults } from './ifc-export';
-
-export const EXPORT_FORMATS = ['csv', 'xlsx', 'pdf', 'bcf', 'ifc'] as const;
-export type ExportFormat = (typeof EXPORT_FORMATS)[number];
-
-export const FORMAT_INFO: Record<ExportFormat, { extension: string; contentType: string }> = {
-  csv: { extension: 'csv', contentType: 'text/csv; charset=utf-8' },
-  xlsx: { extension: 'xlsx', contentType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet' },
-  pdf: { extension: 'pdf', contentType: 'application/pdf' },
-  bcf: { extension: 'bcfzip', contentType: 'application/octet-stream' },
-  ifc: { extension: 'ifc', contentType: 'application/x-step' },
-};
+import type { ExportFormat } from './export-format-info';
 
 export interface ExportSource {
   /** The uploaded model's IFC bytes; only the IFC export asks for them. */

@@ -4,7 +4,7 @@
  */
 import Piscina from 'piscina';
 import type { ExportBundle } from './export-bundle';
-import type { ExportFormat } from './export-formats';
+import type { ExportFormat } from './export-format-info';
 
 let pool: Piscina | null = null;
 

@@ -1,7 +1,7 @@
 import type { SessionUser } from '@shared/api/session';
 import { AuditEntryModel } from '../../db/models/audit-entry';
 import type { RevisionModel } from '../../db/models/revision';
-import type { ExportFormat } from '../../exports/export-formats';
+import type { ExportFormat } from '../../exports/export-format-info';
 
 /**
  * Records an export in the project log. Called only once the file has been written, so an

@@ -1,7 +1,7 @@
 import type { z } from 'zod';
 import type { memberQuerySchema } from '@shared/api/members';
 import { CRITICAL_BANDS } from '../../exports/bcf-export';
-import type { ExportFormat } from '../../exports/export-formats';
+import type { ExportFormat } from '../../exports/export-format-info';
 import { slug } from '../../exports/export-text';
 
 export type ExportQuery = z.output<typeof memberQuerySchema>;

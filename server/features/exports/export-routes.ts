@@ -8,7 +8,7 @@ import { currentUser, requireRole, requireSignedIn } from '../../http/require-us
 import { errors } from '../../http/errors';
 import { findVisibleProject } from '../projects/project-policy';
 import { findRevision } from '../models/model-service';
-import { EXPORT_FORMATS, FORMAT_INFO } from '../../exports/export-formats';
+import { EXPORT_FORMATS, FORMAT_INFO } from '../../exports/export-format-info';
 import { writeExportInWorker } from '../../exports/export-pool';
 import { effectiveQuery, exportFileName } from './export-query';
 import { loadExportBundle, revisionIfcBytes } from './export-service';

@@ -16,7 +16,7 @@ import { validateRecipients, type MailService } from '../../mail/mail-service';
 import { criticalMembersMail } from '../../mail/templates';
 import { loadExportBundle } from '../exports/export-service';
 import { exportFileName } from '../exports/export-query';
-import { FORMAT_INFO } from '../../exports/export-formats';
+import { FORMAT_INFO } from '../../exports/export-format-info';
 import { writeExportInWorker } from '../../exports/export-pool';
 
 /**
