@@ -6,22 +6,23 @@ import { currentIfcApi, releaseIfcApi } from '../ifc/ifc-api';
 export const RELEASE_FROM_BYTES = 32 * 1024 * 1024;
 
 /**
- * The same after the display geometry, which opens every file with web-ifc: its wasm memory
- * grows to hold the model and its meshes (about 200 MB for a 7 MB file) and never shrinks, so the
- * worker kept that between imports. Below this (the samples) the instance is kept: a new one
- * costs about 50 ms, which the next geometry then pays after its results are stored.
+ * From this size up web-ifc is given back after the display geometry too (releaseAfterGeometry),
+ * which opens every file with web-ifc: its wasm memory grows to hold the model and its meshes
+ * (about 200 MB for a 7 MB file) and never shrinks, so the worker kept that between imports.
+ * Below this (the samples) the instance is kept: a new one costs about 50 ms, which the next
+ * geometry then pays after its results are stored.
  */
 export const RELEASE_AFTER_GEOMETRY_FROM_BYTES = 4 * 1024 * 1024;
 
 /**
- * Called once a model is extracted, before its members are checked, and after its display
- * geometry is built (which always opens the model in this thread). When web-ifc held the model
- * in this thread (files read the usual way, or a line only web-ifc could read), its wasm memory
- * has grown to hold it and would stay that size through the checks and every later import;
- * after a large file the instance is dropped, so that memory goes with the next full collection
- * and the checks do not sit on top of it. Since decision 0014 a regular large file is read
- * without web-ifc's model, and the collection then mostly gives back the file's bytes and text
- * index. A small file keeps the instance (a new one costs about 50 ms). Returns whether it was dropped.
+ * Called once a model is extracted, before its members are checked. When web-ifc held the
+ * model in this thread (files read the usual way, or a line only web-ifc could read), its wasm
+ * memory has grown to hold it and would stay that size through the checks and every later
+ * import; after a large file the instance is dropped, so that memory goes with the next full
+ * collection and the checks do not sit on top of it. Since decision 0014 a regular large file
+ * is read without web-ifc's model, and the collection then mostly gives back the file's bytes
+ * and text index. A smaller file keeps the instance (a new one costs about 50 ms). Returns
+ * whether it was dropped.
  * Measured on the 154 MB benchmark model in the app: 1,306 MB → 776 MB between extraction and
  * checks (the file's bytes and text go in the same collection), peak 1,806 → 1,332 MB, for
  * about half a second of collection.
