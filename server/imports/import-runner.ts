@@ -3,7 +3,6 @@ import { hostname, tmpdir } from 'node:os';
 import { promises as fsp } from 'node:fs';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
-import Piscina from 'piscina';
 import { readFile } from 'node:fs/promises';
 import { parseForcesCsv, type ForceRow } from '@shared/forces/parse-forces-csv';
 import type { Sequelize } from 'sequelize';
@@ -19,6 +18,7 @@ import { storeStreamed } from './store-outcome';
 import type { ImportTask, ProgressMessage } from './run-import-task';
 import type { StreamedImportOutcome } from './streamed-import-task';
 import { MemberSliceStream } from './member-slice-stream';
+import { ImportPools, importPoolFor } from './import-pools';
 import type { FailureData } from './import-failure';
 import type { GeometryOutcome, GeometryTask } from './run-geometry-task';
 import type { RevisionSummary } from '@shared/api/models';
@@ -33,7 +33,7 @@ import { prepareMemberTable } from '../features/members/member-table-cache';
  */
 export class ImportRunner {
   readonly owner = `${hostname()}:${process.pid}:${randomBytes(3).toString('hex')}`;
-  private readonly pool: Piscina;
+  private readonly pools: ImportPools;
   private readonly active = new Set<Promise<void>>();
   private timer: NodeJS.Timeout | undefined;
   private ticking = false;
@@ -47,20 +47,7 @@ export class ImportRunner {
     /** Called after a job ends (done or failed) in this process. */
     private readonly onFinished: (revisionId: number) => void = () => {},
   ) {
-    this.pool = new Piscina({
-      filename: new URL('./import-worker.mjs', import.meta.url).href,
-      // One thread stays loaded (tsx, web-ifc, the engine): after a job is stopped at its
-      // limit its replacement starts at once, so the next job does not pay a cold start.
-      minThreads: config.imports.workers > 0 ? 1 : 0,
-      maxThreads: Math.max(1, config.imports.workers),
-      idleTimeout: 60_000,
-      concurrentTasksPerWorker: 1,
-      // A young generation of 192 MB (semi-spaces of 64 MB) instead of V8's 48: extraction and
-      // checks make many short-lived objects next to a large live model, and with the default
-      // the worker spent about a quarter of the check in scavenges (read + extract of the
-      // 5,000-member benchmark model: 4.0 → 2.8 s; checks 1.0 → 0.85 s).
-      resourceLimits: { maxOldGenerationSizeMb: config.imports.memoryLimitMb, maxYoungGenerationSizeMb: 192 },
-    });
+    this.pools = new ImportPools({ maxThreads: config.imports.workers, memoryLimitMb: config.imports.memoryLimitMb });
   }
 
   start(): void {
@@ -116,10 +103,11 @@ export class ImportRunner {
         return;
       }
       local = await this.store.fetchToLocal(job.storageKey);
+      const kind = fileKind(job);
       const task: ImportTask & { job: 'import-for-store' } = {
         job: 'import-for-store',
         filePath: local.path,
-        kind: job.storageKey.endsWith('.ifczip') ? 'ifczip' : 'ifc',
+        kind,
         standard: job.standard as StandardId,
         defaultGrade: project.defaultGrade,
         inflateLimitBytes: this.config.uploads.archiveInflateLimitBytes,
@@ -129,7 +117,7 @@ export class ImportRunner {
       // Checked members arrive in slices on the task's port and are stored while the worker
       // checks the rest (streamed-import-task.ts); the summary is the task's result.
       const stop = new AbortController();
-      const outcome: Promise<StreamedImportOutcome> = this.pool.run(task, {
+      const outcome = this.pools.run<StreamedImportOutcome>(importPoolFor(job.fileSize, kind), task, {
         transferList: [channel.port2] as never,
         signal: AbortSignal.any([AbortSignal.timeout(this.config.imports.timeLimitMs), stop.signal]),
       });
@@ -184,14 +172,15 @@ export class ImportRunner {
     const tmp = path.join(tmpdir(), `gaugeline-geometry-${job.id}-${randomBytes(4).toString('hex')}.bin`);
     try {
       local = await this.store.fetchToLocal(job.storageKey);
+      const kind = fileKind(job);
       const task: GeometryTask = {
         job: 'geometry',
         filePath: local.path,
-        kind: job.storageKey.endsWith('.ifczip') ? 'ifczip' : 'ifc',
+        kind,
         inflateLimitBytes: this.config.uploads.archiveInflateLimitBytes,
         timeBudgetMs: Math.max(1000, this.config.imports.timeLimitMs - 30_000),
       };
-      const out: GeometryOutcome = await this.pool.run(task, { signal: AbortSignal.timeout(this.config.imports.timeLimitMs) });
+      const out = await this.pools.run<GeometryOutcome>(importPoolFor(job.fileSize, kind), task, { signal: AbortSignal.timeout(this.config.imports.timeLimitMs) });
       problem = out.problem;
       if (out.geometry) {
         // The gzipped copy first: once the plain file exists the view may be served, and then in either form.
@@ -271,7 +260,7 @@ export class ImportRunner {
   async stop(): Promise<void> {
     this.stopping = true;
     if (this.timer) clearInterval(this.timer);
-    await this.pool.destroy().catch(() => undefined);
+    await this.pools.destroy();
     await Promise.allSettled([...this.active]);
   }
 
@@ -279,6 +268,10 @@ export class ImportRunner {
   async idle(): Promise<void> {
     while (this.active.size) await Promise.allSettled([...this.active]);
   }
+}
+
+function fileKind(job: RevisionModel): 'ifc' | 'ifczip' {
+  return job.storageKey.endsWith('.ifczip') ? 'ifczip' : 'ifc';
 }
 
 /** An import task that ended with a failure a person should read (not a crash). */
