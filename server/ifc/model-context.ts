@@ -189,12 +189,8 @@ export class ModelContext {
   /** refsFromText for `count` attributes from argument `first` on. */
   refsFromTextAt(id: number, name: Uint8Array, first: number, count: number): (number | undefined)[] | null {
     if (!this.text || id <= 0) return null;
-    const out: (number | undefined)[] = [];
-    for (let k = first; k < first + count; k++) {
-      const r = this.text.handle(id, name, k);
-      if (r === DEFER) return null;
-      out.push(r ?? undefined);
-    }
+    const out = this.text.handlesFrom(id, name, first, count);
+    if (out === DEFER) return null;
     this.linesRead++;
     return out;
   }

@@ -565,6 +565,42 @@ export class StepText {
   }
 
   /**
+   * handle() of `count` arguments from `first` on, in one pass over the line: the same answers
+   * (undefined for '$'; DEFER if any of them is not a plain reference or '$'), without seeking
+   * from the start of the line for each (placements read three in a row, openings two after
+   * their GlobalId and names).
+   */
+  handlesFrom(id: number, name: Uint8Array, first: number, count: number): (number | undefined)[] | typeof DEFER {
+    const b = this.bytes;
+    try {
+      if (!this.seekArgument(id, name, first)) return DEFER;
+      const out: (number | undefined)[] = [];
+      for (let k = 0; k < count; k++) {
+        const at = this.pos;
+        const c = b[at];
+        if (c === DOLLAR) out.push(undefined);
+        else {
+          if (c !== HASH) return DEFER;
+          const s = ++this.pos;
+          out.push(this.integer());
+          if (this.pos === s) return DEFER;
+        }
+        if (k + 1 === count) break;
+        // On to the next argument exactly as seekArgument skips one.
+        this.pos = at;
+        this.skip();
+        this.skipSpace();
+        if (b[this.pos++] !== COMMA) return DEFER;
+        this.skipSpace();
+      }
+      return out;
+    } catch (e) {
+      if (e === defer) return DEFER;
+      throw e;
+    }
+  }
+
+  /**
    * A plain string argument as the line object's attribute holds it (str() of it), null for
    * '$'; DEFER for anything else (escapes and accents are web-ifc's to decode).
    */
@@ -614,7 +650,8 @@ export class StepText {
     const b = this.bytes;
     const c = b[this.pos];
     if (c === QUOTE) {
-      this.string();
+      // Not made into a JS string: most strings skipped over are GlobalIds.
+      this.stringEnd();
       return;
     }
     if (c === LPAREN) {
@@ -891,9 +928,16 @@ export class StepText {
 
   /** A plain string; escapes ('\') and bytes above 127 are left to web-ifc's decoder. */
   private string(): string {
-    const b = this.bytes;
     const s = this.pos + 1;
-    let i = s;
+    const doubled = this.stringEnd();
+    const v = this.text.toString('latin1', s, this.pos - 1);
+    return doubled ? v.replaceAll("''", "'") : v;
+  }
+
+  /** Moves pos past the string that starts at pos; whether it holds a doubled quote. Strings web-ifc must decode throw defer. */
+  private stringEnd(): boolean {
+    const b = this.bytes;
+    let i = this.pos + 1;
     let doubled = false;
     for (;;) {
       const c = b[i];
@@ -910,8 +954,7 @@ export class StepText {
       i++;
     }
     this.pos = i + 1;
-    const v = this.text.toString('latin1', s, i);
-    return doubled ? v.replaceAll("''", "'") : v;
+    return doubled;
   }
 
   private enumeration(): string {

@@ -205,6 +205,60 @@ describe('text reader against web-ifc, line by line', () => {
     expect(n).toBeGreaterThan(100);
   });
 
+  it('references read in one pass (handlesFrom) equal those read one argument at a time', async () => {
+    // The runs of references the placement, body and opening readers ask for, and runs across strings, lists and '*'.
+    const runs: [string, number, number][] = [
+      ['IFCAXIS2PLACEMENT3D', 0, 3],
+      ['IFCLOCALPLACEMENT', 0, 2],
+      ['IFCEXTRUDEDAREASOLID', 0, 3],
+      ['IFCMAPPEDITEM', 0, 2],
+      ['IFCREPRESENTATIONMAP', 0, 2],
+      ['IFCOPENINGELEMENT', 5, 2],
+      ['IFCRELVOIDSELEMENT', 1, 5],
+      ['IFCRELDEFINESBYPROPERTIES', 3, 3],
+    ];
+    const lines = [
+      '#1=IFCAXIS2PLACEMENT3D(#21,$,$);',
+      '#2=IFCAXIS2PLACEMENT3D( #21 ,#23 , #23 );',
+      '#3=IFCAXIS2PLACEMENT3D(#21);',
+      '#4=IFCAXIS2PLACEMENT3D(#21,*,#23);',
+      '#5=IFCAXIS2PLACEMENT3D(#21,(#23),#23);',
+      '#6=IFCLOCALPLACEMENT(#25,(#20));',
+      "#7=IFCOPENINGELEMENT('2MIeVpa0g_EWWy6iMl$8VW',#5,'it''s, (a)',$,'x',#20,#30,$,.OPENING.);",
+      "#8=IFCOPENINGELEMENT('2MIeVpa0g_EWWy6iMl$8VX',#5,$,$,$,$x,#30,$);",
+      "#9=IFCRELVOIDSELEMENT('2MIeVpa0g_EWWy6iMl$8VY',#5,*,$,#10,#15);",
+      "#10=IFCRELDEFINESBYPROPERTIES('2MIeVpa0g_EWWy6iMl$8VZ',#5,IFCLABEL('x,y'),$,( #10 , #11 ),#12);",
+      '#11=IFCLOCALPLACEMENT(#25 #20);',
+    ];
+    const sources = [...files.slice(-4).map(([, load]) => load), () => new TextEncoder().encode(`${header('IFC4')}${lines.join('\n')}\nENDSEC;\nEND-ISO-10303-21;\n`)];
+    let read = 0;
+    let deferred = 0;
+    for (const load of sources) {
+      const o = await open(await load());
+      try {
+        for (const id of o.ids) {
+          for (const [cls, first, count] of runs) {
+            const name = new TextEncoder().encode(cls);
+            const one: (number | undefined)[] = [];
+            for (let k = first; k < first + count && one.length === k - first; k++) {
+              const r = o.text.handle(id, name, k);
+              if (r !== DEFER) one.push(r ?? undefined);
+            }
+            const expected = one.length === count ? one : DEFER;
+            const got = o.text.handlesFrom(id, name, first, count);
+            expect(got, `#${id} ${cls} ${first}+${count}`).toEqual(expected);
+            if (got === DEFER) deferred++;
+            else read++;
+          }
+        }
+      } finally {
+        o.api.CloseModel(o.modelID);
+      }
+    }
+    expect(read).toBeGreaterThan(100);
+    expect(deferred).toBeGreaterThan(read);
+  });
+
   it('placements read from the text equal placements from web-ifc line objects', async () => {
     let n = 0;
     for (const [, load] of files.slice(-4)) {
