@@ -53,11 +53,20 @@ export function alikeRows(rows: unknown[][]): unknown[][] {
     }
     asText.push((whole && fractional) || ((whole || fractional) && nulls));
   }
+  // An import stamps all its rows with one Date: its text is worked out once.
+  let lastTime = NaN;
+  let lastText = '';
   for (const row of rows) {
     for (let c = 0; c < width; c++) {
       const v = row[c];
-      if (v instanceof Date) row[c] = utcText(v);
-      else if (asText[c] && typeof v === 'number' && Number.isFinite(v)) row[c] = String(v);
+      if (v instanceof Date) {
+        const t = v.getTime();
+        if (t !== lastTime) {
+          lastTime = t;
+          lastText = utcText(v);
+        }
+        row[c] = lastText;
+      } else if (asText[c] && typeof v === 'number' && Number.isFinite(v)) row[c] = String(v);
     }
   }
   return rows;

@@ -84,7 +84,7 @@ export function extractAnalysisMembers(ctx: ModelContext, ix: RelationsIndex): E
         endForces.push({ loadCase, location: r3(location), axial: r3(axial), internalAxial: r3(atStart ? -axial : axial), force: F.map(r3) as Vec3, coordinates: coords });
       }
     }
-    const linked = (ix.productLinks.get(id) ?? []).filter((p) => !ctx.className(p).toUpperCase().startsWith('IFCSTRUCTURAL'));
+    const linked = (ix.productLinks.get(id) ?? []).filter((p) => !ctx.classUpper(p).startsWith('IFCSTRUCTURAL'));
     out.push({
       globalId: str(l.GlobalId) ?? `#${id}`,
       name: str(l.Name),

@@ -74,7 +74,7 @@ class Walker {
   item(id: number | undefined, t: Mat4, asCutter: boolean, depth: number): void {
     const ctx = this.ctx;
     if (id === undefined || depth > 32) return;
-    const cls = ctx.className(id).toUpperCase();
+    const cls = ctx.classUpper(id);
     if (cls === 'IFCEXTRUDEDAREASOLID' || cls === 'IFCEXTRUDEDAREASOLIDTAPERED') {
       const solid = sweptSolid(ctx, id, t);
       if (solid) (asCutter ? this.body.cutters : this.body.extrusions).push(solid);
@@ -169,7 +169,7 @@ export function representationItems(ctx: ModelContext, id: number | undefined): 
 
 /** A representation's identifier (lower case) and items; from the text for a plain IfcShapeRepresentation, else its line (null when there is none). */
 function representation(ctx: ModelContext, id: number): { id: number; ident: string; items: number[] } | null {
-  if (ctx.className(id).toUpperCase() === 'IFCSHAPEREPRESENTATION') {
+  if (ctx.classUpper(id) === 'IFCSHAPEREPRESENTATION') {
     const items = ctx.refsAt(id, SHAPE_REPRESENTATION, 3, 'Items');
     return { id, ident: (ctx.stringAt(id, SHAPE_REPRESENTATION, 1, 'RepresentationIdentifier') ?? '').toLowerCase(), items };
   }
@@ -178,7 +178,7 @@ function representation(ctx: ModelContext, id: number): { id: number; ident: str
 }
 
 function readAxisCurve(ctx: ModelContext, id: number | undefined): [Vec3, Vec3] | null {
-  const cls = ctx.className(id).toUpperCase();
+  const cls = ctx.classUpper(id);
   const l = ctx.line(id);
   if (cls === 'IFCPOLYLINE') {
     const pts = refs(l?.Points);

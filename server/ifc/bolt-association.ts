@@ -150,11 +150,6 @@ export function associateBolts(ctx: ModelContext, ix: RelationsIndex, members: M
     const g = bolt.group;
     // The crossing test is asked twice per member (to link, then for the holes): once is enough.
     const hits = new Map<Candidate, Vec3[]>();
-    const cross = (c: Candidate): Vec3[] => {
-      let h = hits.get(c);
-      if (!h) hits.set(c, (h = crossing(bolt, c)));
-      return h;
-    };
     let linked: { c: Candidate | undefined; work: MemberWork }[] = [];
     const realized = (ix.realizes.get(g.expressId) ?? []).map((id) => byExpress.get(id)).filter((w): w is MemberWork => !!w);
     if (realized.length) {
@@ -166,12 +161,12 @@ export function associateBolts(ctx: ModelContext, ix: RelationsIndex, members: M
       if (siblings.length) {
         const hit = siblings.filter((w) => {
           const c = candByExpress.get(w.member.expressId);
-          return c && cross(c).length > 0;
+          return c && crossOnce(hits, bolt, c).length > 0;
         });
         linked = (hit.length ? hit : siblings).map((work) => ({ c: candByExpress.get(work.member.expressId), work }));
         g.associatedBy = 'assembly';
       } else {
-        linked = grid.near(bolt).filter((c) => cross(c).length > 0).map((c) => ({ c, work: c.work }));
+        linked = grid.near(bolt).filter((c) => crossOnce(hits, bolt, c).length > 0).map((c) => ({ c, work: c.work }));
         if (linked.length) g.associatedBy = 'geometry';
       }
     }
@@ -180,8 +175,15 @@ export function associateBolts(ctx: ModelContext, ix: RelationsIndex, members: M
       continue;
     }
     g.memberGlobalIds = [...new Set(linked.map((l) => l.work.member.globalId))].sort();
-    for (const { c, work } of linked) addBoltHoles(work, bolt, c ? cross(c) : g.positions);
+    for (const { c, work } of linked) addBoltHoles(work, bolt, c ? crossOnce(hits, bolt, c) : g.positions);
   }
+}
+
+/** crossing(bolt, c) remembered in `hits` (a plain function: under tsx a closure made per bolt group is also named per group). */
+function crossOnce(hits: Map<Candidate, Vec3[]>, bolt: BoltWork, c: Candidate): Vec3[] {
+  let h = hits.get(c);
+  if (!h) hits.set(c, (h = crossing(bolt, c)));
+  return h;
 }
 
 /** Marks modelled holes that a bolt passes through; adds derived holes where none is modelled. */

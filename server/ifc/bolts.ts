@@ -50,7 +50,7 @@ function itemBoxOf(ctx: ModelContext, repId: number | undefined): ItemBox {
   };
   let budget = 4000;
   for (const it of representationItems(ctx, repId)) {
-    const cls = ctx.className(it).toUpperCase();
+    const cls = ctx.classUpper(it);
     if (cls === 'IFCEXTRUDEDAREASOLID') {
       const e = extrusion(ctx, it);
       if (!e) continue;

@@ -4,7 +4,8 @@
  * are bolt holes.
  */
 import type { ModelContext } from './model-context.ts';
-import { transformPoint } from './mat4.ts';
+import { transformPoint, type Mat4 } from './mat4.ts';
+import type { Vec3 } from './types.ts';
 import { axisPlacement, pointMm } from './placements.ts';
 import { num, ref, refs } from './step-values.ts';
 
@@ -40,10 +41,10 @@ function compositeAsCircle(ctx: ModelContext, curveId: number | undefined): { cx
 }
 
 function polylineBox(ctx: ModelContext, curveId: number | undefined): { w: number; h: number; cx: number; cy: number } | null {
-  const cls = ctx.className(curveId).toUpperCase();
+  const cls = ctx.classUpper(curveId);
   const pts: number[][] = [];
   const collect = (id: number | undefined) => {
-    const c = ctx.className(id).toUpperCase();
+    const c = ctx.classUpper(id);
     if (c === 'IFCPOLYLINE') for (const p of refs(ctx.line(id)?.Points)) pts.push(pointMm(ctx, p));
     if (c === 'IFCTRIMMEDCURVE') collect(ref(ctx.line(id)?.BasisCurve));
     if (c === 'IFCCIRCLE') {
@@ -61,21 +62,25 @@ function polylineBox(ctx: ModelContext, curveId: number | undefined): { w: numbe
 }
 
 /** Shape of a cutting profile, in the coordinates of the swept solid's Position (mm). */
+/** A point of the profile's plane placed by its Position (none: as it is). */
+function inProfilePlane(pos: Mat4 | null, x: number, y: number): Vec3 {
+  return pos ? transformPoint(pos, [x, y, 0]) : [x, y, 0];
+}
+
 export function cutterShape(ctx: ModelContext, profileId: number | undefined): CutterShape {
   const p = ctx.line(profileId);
   if (!p) return { kind: 'other', reason: 'no profile' };
-  const cls = ctx.className(profileId).toUpperCase();
+  const cls = ctx.classUpper(profileId);
   const pos = p.Position ? axisPlacement(ctx, ref(p.Position)) : null;
-  const at = (x: number, y: number) => (pos ? transformPoint(pos, [x, y, 0]) : [x, y, 0]);
   if (cls === 'IFCCIRCLEPROFILEDEF') {
-    const [cx, cy] = at(0, 0);
+    const [cx, cy] = inProfilePlane(pos, 0, 0);
     return { kind: 'circle', cx, cy, radius: ctx.mm(num(p.Radius)) ?? 0 };
   }
   if (cls === 'IFCROUNDEDRECTANGLEPROFILEDEF') {
     const x = ctx.mm(num(p.XDim)) ?? 0;
     const y = ctx.mm(num(p.YDim)) ?? 0;
     const r = ctx.mm(num(p.RoundingRadius)) ?? 0;
-    const [cx, cy] = at(0, 0);
+    const [cx, cy] = inProfilePlane(pos, 0, 0);
     const small = Math.min(x, y);
     if (Math.abs(r - small / 2) > TOL) return { kind: 'other', reason: 'rounded rectangle' };
     if (Math.abs(x - y) <= TOL) return { kind: 'circle', cx, cy, radius: r };

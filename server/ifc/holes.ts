@@ -83,7 +83,7 @@ const OPENING_ELEMENT = new TextEncoder().encode('IFCOPENINGELEMENT');
 
 /** An opening's GlobalId, body and placement references: from the text for a plain IfcOpeningElement, else its line (null when there is none). */
 function openingRefs(ctx: ModelContext, id: number): { gid: string | null; representation: number | undefined; placement: number | undefined } | null {
-  const fromText = ctx.className(id).toUpperCase() === 'IFCOPENINGELEMENT' ? ctx.refsFromTextAt(id, OPENING_ELEMENT, 5, 2) : null;
+  const fromText = ctx.classUpper(id) === 'IFCOPENINGELEMENT' ? ctx.refsFromTextAt(id, OPENING_ELEMENT, 5, 2) : null;
   if (fromText) return { gid: ctx.stringAt(id, OPENING_ELEMENT, 0, 'GlobalId'), placement: fromText[0], representation: fromText[1] };
   const op = ctx.line(id);
   return op ? { gid: str(op.GlobalId), representation: ref(op.Representation), placement: ref(op.ObjectPlacement) } : null;
@@ -94,7 +94,7 @@ export function extractHoles(ctx: ModelContext, ix: RelationsIndex, memberId: nu
   for (const openingId of ix.openings.get(memberId) ?? []) {
     const op = openingRefs(ctx, openingId);
     if (!op) continue;
-    const isFeature = ctx.className(openingId).toUpperCase() === 'IFCVOIDINGFEATURE';
+    const isFeature = ctx.classUpper(openingId) === 'IFCVOIDINGFEATURE';
     const gid = op.gid ?? `#${openingId}`;
     const obody = readBody(ctx, op.representation);
     const world = objectPlacement(ctx, op.placement);

@@ -17,18 +17,20 @@ export interface MaterialLookup {
   cardinalPoint?: number;
 }
 
+/** The material `matId` names, found by way of `source`. */
+function named(ctx: ModelContext, matId: number | undefined, source: MaterialSource, profileId?: number): MaterialLookup {
+  const m = ctx.line(matId);
+  const name = str(m?.Name);
+  return { material: name ? { name, source } : null, materialId: name ? matId : undefined, profileId };
+}
+
 function resolve(ctx: ModelContext, id: number, depth = 0): MaterialLookup | null {
   const l = ctx.line(id);
   if (!l || depth > 4) return null;
-  const cls = ctx.className(id).toUpperCase();
-  const named = (matId: number | undefined, source: MaterialSource, profileId?: number): MaterialLookup => {
-    const m = ctx.line(matId);
-    const name = str(m?.Name);
-    return { material: name ? { name, source } : null, materialId: name ? matId : undefined, profileId };
-  };
+  const cls = ctx.classUpper(id);
   switch (cls) {
     case 'IFCMATERIAL':
-      return named(id, 'material');
+      return named(ctx, id, 'material');
     case 'IFCMATERIALPROFILESETUSAGE':
     case 'IFCMATERIALPROFILESETUSAGETAPERING': {
       const r = resolve(ctx, ref(l.ForProfileSet) ?? -1, depth + 1);
@@ -40,18 +42,18 @@ function resolve(ctx: ModelContext, id: number, depth = 0): MaterialLookup | nul
     }
     case 'IFCMATERIALPROFILE':
     case 'IFCMATERIALPROFILEWITHOFFSETS':
-      return named(ref(l.Material), 'material-profile-set', ref(l.Profile));
+      return named(ctx, ref(l.Material), 'material-profile-set', ref(l.Profile));
     case 'IFCMATERIALLIST':
-      return named(refs(l.Materials)[0], 'material-list');
+      return named(ctx, refs(l.Materials)[0], 'material-list');
     case 'IFCMATERIALLAYERSETUSAGE':
       return resolve(ctx, ref(l.ForLayerSet) ?? -1, depth + 1);
     case 'IFCMATERIALLAYERSET': {
       const layer = ctx.line(refs(l.MaterialLayers)[0]);
-      return named(ref(layer?.Material), 'material-layer-set');
+      return named(ctx, ref(layer?.Material), 'material-layer-set');
     }
     case 'IFCMATERIALCONSTITUENTSET': {
       const c = ctx.line(refs(l.MaterialConstituents)[0]);
-      return named(ref(c?.Material), 'material');
+      return named(ctx, ref(c?.Material), 'material');
     }
     default:
       return null;
@@ -60,7 +62,7 @@ function resolve(ctx: ModelContext, id: number, depth = 0): MaterialLookup | nul
 
 function strengths(ctx: ModelContext, ix: RelationsIndex, materialId: number | undefined, info: MaterialInfo): void {
   for (const pid of ix.materialProperties.get(materialId ?? -1) ?? []) {
-    const cls = ctx.className(pid).toUpperCase();
+    const cls = ctx.classUpper(pid);
     if (cls === 'IFCMECHANICALSTEELMATERIALPROPERTIES') {
       const l = ctx.line(pid);
       const fy = num(l?.YieldStress);

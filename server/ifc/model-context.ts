@@ -29,6 +29,7 @@ export class ModelContext {
   private readonly slotIds: Float64Array;
   private readonly slotLines: any[];
   private typeNames = new Map<number, string>();
+  private upperNames = new Map<string, string>();
   /** Cache misses, and how many of them went through web-ifc's GetLine (ReadStats). */
   linesRead = 0;
   linesFromWebIfc = 0;
@@ -232,8 +233,19 @@ export class ModelContext {
     return n;
   }
 
+  /** className() in capitals, as the readers compare classes (each class's made once, not per call). */
+  classUpper(id: number | undefined): string {
+    const n = this.className(id);
+    let u = this.upperNames.get(n);
+    if (u === undefined) {
+      u = n.toUpperCase();
+      this.upperNames.set(n, u);
+    }
+    return u;
+  }
+
   isA(id: number | undefined, ...names: string[]): boolean {
-    const c = this.className(id).toUpperCase();
+    const c = this.classUpper(id);
     return names.some((n) => n.toUpperCase() === c);
   }
 

@@ -47,7 +47,7 @@ export function axisPlacement(ctx: ModelContext, id: number | undefined): Mat4 {
   const p = ctx.line(id);
   if (!p) return IDENTITY.slice();
   const origin = pointMm(ctx, ref(p.Location));
-  const cls = ctx.className(id).toUpperCase();
+  const cls = ctx.classUpper(id);
   if (cls === 'IFCAXIS2PLACEMENT2D') {
     const xd = direction(ctx, ref(p.RefDirection), [1, 0, 0]);
     const f = orthoFrame([0, 0, 1], [xd[0], xd[1], 0]);
@@ -70,7 +70,7 @@ export function objectPlacement(ctx: ModelContext, id: number | undefined, depth
   let m: Mat4;
   const refsLocal = depth < 64 ? ctx.refsFromText(id, LOCALPLACEMENT, 2) : null;
   const p = refsLocal ? null : ctx.line(id);
-  if (refsLocal || (p && ctx.className(id).toUpperCase() === 'IFCLOCALPLACEMENT' && depth < 64)) {
+  if (refsLocal || (p && ctx.classUpper(id) === 'IFCLOCALPLACEMENT' && depth < 64)) {
     const rel = axisPlacement(ctx, refsLocal ? refsLocal[1] : ref(p.RelativePlacement));
     const parent = refsLocal ? refsLocal[0] : ref(p.PlacementRelTo);
     m = parent !== undefined ? multiply(objectPlacement(ctx, parent, depth + 1), rel) : rel;

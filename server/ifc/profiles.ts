@@ -21,40 +21,44 @@ export interface ReadProfile {
 
 const r3 = (v: number | undefined) => (v === undefined ? undefined : Math.round(v * 1000) / 1000);
 
+/** A length attribute in mm to three decimals (a plain function: under tsx a closure made per call is also named per call). */
+function mmOf(ctx: ModelContext, v: unknown): number | undefined {
+  return r3(ctx.mm(num(v)));
+}
+
 function parametricSection(ctx: ModelContext, cls: string, p: any): Section | null {
-  const mm = (v: unknown) => r3(ctx.mm(num(v)));
   switch (cls) {
     case 'IFCISHAPEPROFILEDEF':
     case 'IFCISHAPEPROFILEDEFSTANDARDCASE': {
-      const s: Section = { shape: 'i', depth: mm(p.OverallDepth) ?? 0, flangeWidth: mm(p.OverallWidth) ?? 0, webThickness: mm(p.WebThickness) ?? 0, flangeThickness: mm(p.FlangeThickness) ?? 0 };
-      if (mm(p.FilletRadius) !== undefined) s.rootRadius = mm(p.FilletRadius);
+      const s: Section = { shape: 'i', depth: mmOf(ctx, p.OverallDepth) ?? 0, flangeWidth: mmOf(ctx, p.OverallWidth) ?? 0, webThickness: mmOf(ctx, p.WebThickness) ?? 0, flangeThickness: mmOf(ctx, p.FlangeThickness) ?? 0 };
+      if (mmOf(ctx, p.FilletRadius) !== undefined) s.rootRadius = mmOf(ctx, p.FilletRadius);
       return s;
     }
     case 'IFCLSHAPEPROFILEDEF': {
-      const depth = mm(p.Depth) ?? 0;
-      const s: Section = { shape: 'angle', legA: depth, legB: mm(p.Width) ?? depth, thickness: mm(p.Thickness) ?? 0 };
-      if (mm(p.FilletRadius) !== undefined) s.rootRadius = mm(p.FilletRadius);
-      if (mm(p.EdgeRadius) !== undefined) s.toeRadius = mm(p.EdgeRadius);
+      const depth = mmOf(ctx, p.Depth) ?? 0;
+      const s: Section = { shape: 'angle', legA: depth, legB: mmOf(ctx, p.Width) ?? depth, thickness: mmOf(ctx, p.Thickness) ?? 0 };
+      if (mmOf(ctx, p.FilletRadius) !== undefined) s.rootRadius = mmOf(ctx, p.FilletRadius);
+      if (mmOf(ctx, p.EdgeRadius) !== undefined) s.toeRadius = mmOf(ctx, p.EdgeRadius);
       return s;
     }
     case 'IFCUSHAPEPROFILEDEF': {
-      const s: Section = { shape: 'channel', depth: mm(p.Depth) ?? 0, flangeWidth: mm(p.FlangeWidth) ?? 0, webThickness: mm(p.WebThickness) ?? 0, flangeThickness: mm(p.FlangeThickness) ?? 0 };
-      if (mm(p.FilletRadius) !== undefined) s.rootRadius = mm(p.FilletRadius);
-      if (mm(p.EdgeRadius) !== undefined) s.toeRadius = mm(p.EdgeRadius);
+      const s: Section = { shape: 'channel', depth: mmOf(ctx, p.Depth) ?? 0, flangeWidth: mmOf(ctx, p.FlangeWidth) ?? 0, webThickness: mmOf(ctx, p.WebThickness) ?? 0, flangeThickness: mmOf(ctx, p.FlangeThickness) ?? 0 };
+      if (mmOf(ctx, p.FilletRadius) !== undefined) s.rootRadius = mmOf(ctx, p.FilletRadius);
+      if (mmOf(ctx, p.EdgeRadius) !== undefined) s.toeRadius = mmOf(ctx, p.EdgeRadius);
       return s;
     }
     case 'IFCTSHAPEPROFILEDEF': {
-      const s: Section = { shape: 'tee', depth: mm(p.Depth) ?? 0, flangeWidth: mm(p.FlangeWidth) ?? 0, webThickness: mm(p.WebThickness) ?? 0, flangeThickness: mm(p.FlangeThickness) ?? 0 };
-      if (mm(p.FilletRadius) !== undefined) s.rootRadius = mm(p.FilletRadius);
+      const s: Section = { shape: 'tee', depth: mmOf(ctx, p.Depth) ?? 0, flangeWidth: mmOf(ctx, p.FlangeWidth) ?? 0, webThickness: mmOf(ctx, p.WebThickness) ?? 0, flangeThickness: mmOf(ctx, p.FlangeThickness) ?? 0 };
+      if (mmOf(ctx, p.FilletRadius) !== undefined) s.rootRadius = mmOf(ctx, p.FilletRadius);
       return s;
     }
     case 'IFCCIRCLEPROFILEDEF':
       return { shape: 'round-bar', diameter: r3(2 * (ctx.mm(num(p.Radius)) ?? 0)) ?? 0 };
     case 'IFCCIRCLEHOLLOWPROFILEDEF':
-      return { shape: 'chs', diameter: r3(2 * (ctx.mm(num(p.Radius)) ?? 0)) ?? 0, thickness: mm(p.WallThickness) ?? 0 };
+      return { shape: 'chs', diameter: r3(2 * (ctx.mm(num(p.Radius)) ?? 0)) ?? 0, thickness: mmOf(ctx, p.WallThickness) ?? 0 };
     case 'IFCRECTANGLEHOLLOWPROFILEDEF': {
-      const s: Section = { shape: 'rhs', depth: mm(p.YDim) ?? 0, width: mm(p.XDim) ?? 0, thickness: mm(p.WallThickness) ?? 0 };
-      if (mm(p.OuterFilletRadius) !== undefined) s.outerRadius = mm(p.OuterFilletRadius);
+      const s: Section = { shape: 'rhs', depth: mmOf(ctx, p.YDim) ?? 0, width: mmOf(ctx, p.XDim) ?? 0, thickness: mmOf(ctx, p.WallThickness) ?? 0 };
+      if (mmOf(ctx, p.OuterFilletRadius) !== undefined) s.outerRadius = mmOf(ctx, p.OuterFilletRadius);
       return s;
     }
     default:
@@ -74,7 +78,7 @@ function outlinePoints(ctx: ModelContext, curveId: number | undefined): [number,
 export function readProfile(ctx: ModelContext, profileId: number | undefined, depth = 0): ReadProfile | null {
   const p = ctx.line(profileId);
   if (!p || depth > 4) return null;
-  const cls = ctx.className(profileId).toUpperCase();
+  const cls = ctx.classUpper(profileId);
   const name = str(p.ProfileName);
   const position = p.Position ? axisPlacement(ctx, ref(p.Position)) : IDENTITY.slice();
 

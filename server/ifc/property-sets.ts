@@ -71,17 +71,19 @@ export function readPropertyContainers(ctx: ModelContext, ids: number[] | undefi
  */
 export function propertySetsOf(ctx: ModelContext, ix: RelationsIndex, elementId: number, own?: PropertyContainer[]): PropertySets {
   const out: PropertySets = new Map();
-  const add = (containers: PropertyContainer[]) => {
-    for (const c of containers) {
-      const existing = out.get(c.name);
-      if (!existing) out.set(c.name, new Map(c.props));
-      else for (const [k, v] of c.props) if (!existing.has(k)) existing.set(k, v);
-    }
-  };
-  add(own ?? readPropertyContainers(ctx, ix.psets.get(elementId)));
+  addContainers(out, own ?? readPropertyContainers(ctx, ix.psets.get(elementId)));
   const typeId = ix.typeOf.get(elementId);
-  if (typeId !== undefined) add(readPropertyContainers(ctx, ix.psets.get(typeId)));
+  if (typeId !== undefined) addContainers(out, readPropertyContainers(ctx, ix.psets.get(typeId)));
   return out;
+}
+
+/** Adds sets to `out`; a property already there (the occurrence's own) is kept. */
+function addContainers(out: PropertySets, containers: PropertyContainer[]): void {
+  for (const c of containers) {
+    const existing = out.get(c.name);
+    if (!existing) out.set(c.name, new Map(c.props));
+    else for (const [k, v] of c.props) if (!existing.has(k)) existing.set(k, v);
+  }
 }
 
 /** Each set's properties under their names in lower case, in the order findProperty visits them (made once per sets). */

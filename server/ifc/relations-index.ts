@@ -101,7 +101,10 @@ export function buildRelationsIndex(ctx: ModelContext, scope: 'all' | 'propertie
     }
   }
   for (const id of ctx.idsOfType(W.IFCRELVOIDSELEMENT)) {
-    push(ix.openings, ctx.refAt(id, VOIDS_ELEMENT, 4, 'RelatingBuildingElement'), ctx.refAt(id, VOIDS_ELEMENT, 5, 'RelatedOpeningElement'));
+    // Both references in one pass over the line where the text allows; else each as refAt reads it.
+    const pair = ctx.refsFromTextAt(id, VOIDS_ELEMENT, 4, 2);
+    if (pair) push(ix.openings, pair[0], pair[1]);
+    else push(ix.openings, ctx.refAt(id, VOIDS_ELEMENT, 4, 'RelatingBuildingElement'), ctx.refAt(id, VOIDS_ELEMENT, 5, 'RelatedOpeningElement'));
   }
   for (const id of ctx.idsOfType(W.IFCRELCONNECTSWITHREALIZINGELEMENTS)) {
     const r = ctx.line(id);

@@ -29,7 +29,7 @@ function siUnitFactor(u: any): UnitFactor {
 function unitFactor(ctx: ModelContext, id: number | undefined, depth = 0): UnitFactor | null {
   const u = ctx.line(id);
   if (!u || depth > 4) return null;
-  const cls = ctx.className(id).toUpperCase();
+  const cls = ctx.classUpper(id);
   if (cls === 'IFCSIUNIT') return siUnitFactor(u);
   if (cls === 'IFCCONVERSIONBASEDUNIT' || cls === 'IFCCONVERSIONBASEDUNITWITHOFFSET') {
     const mwu = ctx.line(ref(u.ConversionFactor));
