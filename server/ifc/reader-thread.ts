@@ -24,7 +24,16 @@ function readerThread(): Worker {
   // Under the same old-generation limit as the thread that asks (an import worker's memory
   // limit): a thread out of memory ends, and the reading thread does its part itself.
   const oldLimit = resourceLimits.maxOldGenerationSizeMb;
-  return idle.pop() ?? new Worker(new URL('./reader-thread.mjs', import.meta.url), { resourceLimits: { maxYoungGenerationSizeMb: 96, ...(oldLimit ? { maxOldGenerationSizeMb: oldLimit } : {}) } });
+  return idle.pop() ?? new Worker(new URL('./reader-thread.mjs', import.meta.url), { resourceLimits: { maxYoungGenerationSizeMb: readerYoungGenerationMb(resourceLimits.maxYoungGenerationSizeMb), ...(oldLimit ? { maxOldGenerationSizeMb: oldLimit } : {}) } });
+}
+
+/**
+ * The reader thread's young generation, MB: half the asking thread's (it reads a third of what that
+ * thread reads), at least 32. Import threads for large files have 192, those for smaller files 48
+ * (import-pools.ts); a thread without a limit of its own (the command line) is taken as a large one.
+ */
+export function readerYoungGenerationMb(askingThreadMb: number | undefined): number {
+  return Math.max(32, (askingThreadMb || 192) / 2);
 }
 
 /**

@@ -1,20 +1,21 @@
 /**
  * The import worker threads, in two pools that differ only in the room V8 gives short-lived
  * objects (decision 0017). Large files are read and checked faster with a 192 MB young
- * generation (decision 0008); a small file's import fills that space just the same and would
- * add about 100 MB to the app for a 7 MB file, so small files go to threads with V8's usual 48 MB.
- * This module must not load web-ifc or the reader: it runs on the request thread.
+ * generation (decision 0008); a smaller file's import fills that space just the same, and with
+ * the reader thread's half of it that alone is more than 8 × a file under 64 MB, so those go to
+ * threads with V8's usual 48 MB. This module must not load web-ifc or the reader: it runs on
+ * the request thread.
  */
 import Piscina from 'piscina';
 
 export type ImportPoolName = 'small-files' | 'large-files';
 
 /**
- * Text size from which a file goes to the large-file pool. The same line as the reader thread's
- * (read-model.ts READER_THREAD_FROM_BYTES; a test holds them equal): only the large-file threads
- * keep a reader thread ready.
+ * Text size from which a file goes to the large-file pool. Large-file threads keep a reader thread
+ * ready; a small-file thread starts one for its first file from 16 MB (read-model.ts
+ * READER_THREAD_FROM_BYTES) and keeps it.
  */
-export const LARGE_FILE_FROM_BYTES = 16 * 1024 * 1024;
+export const LARGE_FILE_FROM_BYTES = 64 * 1024 * 1024;
 
 /**
  * An .ifczip holds several times its size in text; IFC text usually packs to a fifth or less

@@ -1,6 +1,7 @@
 // Entry file of the import worker threads. Workers do not inherit the TypeScript loader
 // when the pool is created from a test runner, so register tsx here, then load the tasks.
 import { register } from 'tsx/esm/api';
+import v8 from 'node:v8';
 import { resourceLimits } from 'node:worker_threads';
 import { workerData } from 'piscina';
 
@@ -14,8 +15,9 @@ const geometryTask = import('./run-geometry-task.ts');
 if (workerData?.pool === 'large-files') void import('../ifc/reader-thread.ts').then((m) => m.prewarmReaderThread(), () => undefined);
 
 export default async function importWorker(task) {
-  // What this thread runs with (tests of the pools): its V8 limits and reader threads kept ready.
-  if (task.job === 'thread-state') return { resourceLimits, idleReaderThreads: (await import('../ifc/reader-thread.ts')).idleReaderThreads() };
+  // What this thread runs with and holds (tests of the pools, memory probes): its V8 limits and
+  // heap, and reader threads kept ready.
+  if (task.job === 'thread-state') return { resourceLimits, heap: v8.getHeapStatistics(), idleReaderThreads: (await import('../ifc/reader-thread.ts')).idleReaderThreads() };
   if (task.job === 'geometry') return (await geometryTask).runGeometryTask(task);
   // The app's runner takes members ready to store; the command line takes them as objects.
   if (task.job === 'import-for-store') return (await importForStore).runImportTaskForStore(task);

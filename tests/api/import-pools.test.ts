@@ -3,22 +3,29 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { IFCZIP_TEXT_PER_BYTE, ImportPools, LARGE_FILE_FROM_BYTES, YOUNG_GENERATION_MB, importPoolFor } from '../../server/imports/import-pools.ts';
 import { READER_THREAD_FROM_BYTES } from '../../server/ifc/read-model.ts';
+import { readerYoungGenerationMb } from '../../server/ifc/reader-thread.ts';
 
 const MB = 1024 * 1024;
 
 describe('which pool imports a file', () => {
   it('goes by the size of the text: .ifc as stored, .ifczip by its estimated text', () => {
     expect(importPoolFor(7.3 * MB, 'ifc')).toBe('small-files');
+    expect(importPoolFor(37.6 * MB, 'ifc')).toBe('small-files');
     expect(importPoolFor(LARGE_FILE_FROM_BYTES - 1, 'ifc')).toBe('small-files');
     expect(importPoolFor(LARGE_FILE_FROM_BYTES, 'ifc')).toBe('large-files');
     expect(importPoolFor(154 * MB, 'ifc')).toBe('large-files');
     expect(importPoolFor(Math.ceil(LARGE_FILE_FROM_BYTES / IFCZIP_TEXT_PER_BYTE), 'ifczip')).toBe('large-files');
-    expect(importPoolFor(2 * MB, 'ifczip')).toBe('small-files');
+    expect(importPoolFor(8 * MB, 'ifczip')).toBe('small-files');
   });
 
-  it('draws the line where the reader thread starts helping', () => {
-    // Only large-file threads keep a reader thread ready; a file the reader reads with one must go there.
-    expect(LARGE_FILE_FROM_BYTES).toBe(READER_THREAD_FROM_BYTES);
+  it('sends files the reader thread helps with to either pool, the large ones to the large-file pool', () => {
+    expect(LARGE_FILE_FROM_BYTES).toBeGreaterThan(READER_THREAD_FROM_BYTES);
+  });
+
+  it('gives the reader thread half the young generation of the thread that asks, at least 32 MB', () => {
+    expect(readerYoungGenerationMb(YOUNG_GENERATION_MB['large-files'])).toBe(96);
+    expect(readerYoungGenerationMb(YOUNG_GENERATION_MB['small-files'])).toBe(32);
+    expect(readerYoungGenerationMb(undefined)).toBe(96);
   });
 });
 
