@@ -61,13 +61,21 @@ function polylineBox(ctx: ModelContext, curveId: number | undefined): { w: numbe
   return { w: x1 - x0, h: y1 - y0, cx: (x0 + x1) / 2, cy: (y0 + y1) / 2 };
 }
 
-/** Shape of a cutting profile, in the coordinates of the swept solid's Position (mm). */
 /** A point of the profile's plane placed by its Position (none: as it is). */
 function inProfilePlane(pos: Mat4 | null, x: number, y: number): Vec3 {
   return pos ? transformPoint(pos, [x, y, 0]) : [x, y, 0];
 }
 
+const CIRCLE_PROFILE_DEF = new TextEncoder().encode('IFCCIRCLEPROFILEDEF');
+
+/** Shape of a cutting profile, in the coordinates of the swept solid's Position (mm). */
 export function cutterShape(ctx: ModelContext, profileId: number | undefined): CutterShape {
+  // Bolt holes are round: their Position (argument 2) and Radius (3) straight from the text, no line object.
+  const position = profileId !== undefined && ctx.classUpper(profileId) === 'IFCCIRCLEPROFILEDEF' ? ctx.refsFromTextAt(profileId, CIRCLE_PROFILE_DEF, 2, 1) : null;
+  if (position) {
+    const [cx, cy] = inProfilePlane(position[0] === undefined ? null : axisPlacement(ctx, position[0]), 0, 0);
+    return { kind: 'circle', cx, cy, radius: ctx.mm(ctx.realAt(profileId, CIRCLE_PROFILE_DEF, 3, 'Radius')) ?? 0 };
+  }
   const p = ctx.line(profileId);
   if (!p) return { kind: 'other', reason: 'no profile' };
   const cls = ctx.classUpper(profileId);
