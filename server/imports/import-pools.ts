@@ -67,6 +67,11 @@ export class ImportPools {
     return this.pools[name].run(task, options);
   }
 
+  /** The threads of both pools (tests stop them mid-import). */
+  get threads(): Piscina['threads'] {
+    return [...this.pools['small-files'].threads, ...this.pools['large-files'].threads];
+  }
+
   async destroy(): Promise<void> {
     await Promise.allSettled([this.pools['small-files'].destroy(), this.pools['large-files'].destroy()]);
   }

@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type Piscina from 'piscina';
+import type { ImportPools } from '../../server/imports/import-pools.ts';
 import request from 'supertest';
 import { startTestApp, type TestApp } from '../support/test-app';
 import { signIn, DEMO, type Caller } from '../support/api-client';
@@ -129,8 +129,8 @@ describe('a worker killed mid-import', () => {
     const at = text.lastIndexOf('ENDSEC;');
     const points = Array.from({ length: 400_000 }, (_, i) => `#${900000 + i}=IFCCARTESIANPOINT((${i}.,0.,0.));`).join('\n');
     const slow = Buffer.from(`${text.slice(0, at)}${points}\n${text.slice(at)}`, 'latin1');
-    const pool = (app.server.imports as unknown as { pool: Piscina }).pool;
-    expect(Array.isArray(pool.threads), 'ImportRunner keeps its piscina pool in `pool`').toBe(true);
+    const pool = (app.server.imports as unknown as { pools: ImportPools }).pools;
+    expect(Array.isArray(pool.threads), 'ImportRunner keeps its worker pools in `pools`').toBe(true);
 
     const victim = (await uploadFile(engineer, projectA, slow, 'slow.ifc', 'Killed shed')).body.revision.id;
     const behind = (await uploadFile(engineer, projectA, Buffer.concat([SAMPLE, Buffer.from('\n/* behind */\n')]), 'behind.ifc', 'Queued shed')).body.revision.id;
