@@ -11,7 +11,7 @@
  *   the text's index and web-ifc's model is opened only if some line or placement needs web-ifc
  *   itself. If web-ifc then counts other lines than the text shows (its tokeniser lost a line
  *   of a damaged file), the read steps back to the second way.
- *   From 16 MB up, a second thread indexes the second half of the text meanwhile, then reads the
+ *   From 64 MB up, a second thread indexes the second half of the text meanwhile, then reads the
  *   bolt groups while this one reads members (reader-thread.ts).
  * - web-ifc first: web-ifc opens the model here, as it always did; lines still come from the
  *   text when both count the same lines.
@@ -27,8 +27,14 @@ import { checkHeader, openModel } from './open-model.ts';
 import { StepText } from './step-text.ts';
 import type { ExtractedModel, ReadOptions } from './types.ts';
 
-/** From this size up the reader thread indexes half the text and reads the bolt groups (below, handing work over costs more than it saves). */
-export const READER_THREAD_FROM_BYTES = 16 * 1024 * 1024;
+/**
+ * From this size up the reader thread indexes half the text and reads the bolt groups. From 16 MB
+ * it was faster (decision 0014), but below 64 MB the thread, its young generation and its half of
+ * the index and groups took a medium file's import over 8 × the file in memory (decision 0017):
+ * imports of 16–64 MB read alone, about a tenth slower. The large-file import pool starts at the
+ * same size (import-pools.ts; a test holds them equal).
+ */
+export const READER_THREAD_FROM_BYTES = 64 * 1024 * 1024;
 
 export async function readIfcModel(bytes: Uint8Array, options: ReadOptions = {}): Promise<ExtractedModel> {
   if (!options.webIfcFirst && options.readLinesWith !== 'web-ifc') {

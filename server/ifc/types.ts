@@ -45,7 +45,7 @@ export interface ReadOptions {
   /**
    * true: a second thread indexes the second half of the text and reads the bolt groups while
    * members are read (text-first reads only, reader-thread.ts); false: all in this thread.
-   * Default: true from 16 MB up (read-model.ts).
+   * Default: true from 64 MB up (read-model.ts).
    */
   readerThread?: boolean;
   /** Filled in by readIfcModel when given: where the time went, for benchmarks. */

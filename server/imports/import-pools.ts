@@ -3,7 +3,7 @@
  * objects (decision 0017). Large files are read and checked faster with a 192 MB young
  * generation (decision 0008); a smaller file's import fills that space just the same, and with
  * the reader thread's half of it that alone is more than 8 × a file under 64 MB, so those go to
- * threads with V8's usual 48 MB. This module must not load web-ifc or the reader: it runs on
+ * threads with V8's usual 48 MB and are read without a reader thread. This module must not load web-ifc or the reader: it runs on
  * the request thread.
  */
 import Piscina from 'piscina';
@@ -11,9 +11,9 @@ import Piscina from 'piscina';
 export type ImportPoolName = 'small-files' | 'large-files';
 
 /**
- * Text size from which a file goes to the large-file pool. Large-file threads keep a reader thread
- * ready; a small-file thread starts one for its first file from 16 MB (read-model.ts
- * READER_THREAD_FROM_BYTES) and keeps it.
+ * Text size from which a file goes to the large-file pool: the reader thread's line too
+ * (read-model.ts READER_THREAD_FROM_BYTES; a test holds them equal), as only large-file threads
+ * keep a reader thread ready.
  */
 export const LARGE_FILE_FROM_BYTES = 64 * 1024 * 1024;
 
@@ -61,6 +61,10 @@ export class ImportPools {
         resourceLimits: { maxOldGenerationSizeMb: options.memoryLimitMb, maxYoungGenerationSizeMb: YOUNG_GENERATION_MB[name] },
       });
     this.pools = { 'small-files': pool('small-files'), 'large-files': pool('large-files') };
+    // Piscina starts the threads now but loads their tasks' module with the first task: a task that
+    // only reports loads tsx, web-ifc, the engine and (large files) the reader thread at start-up.
+    // Without it the first large import after a start also paid for all that (20.6 s against 13–14 s).
+    if (options.maxThreads > 0) for (const p of Object.values(this.pools)) void p.run({ job: 'thread-state' }).catch(() => undefined);
   }
 
   run<T>(name: ImportPoolName, task: unknown, options: Parameters<Piscina['run']>[1]): Promise<T> {

@@ -10,7 +10,7 @@ const importTask = import('./run-import-task.ts');
 const importForStore = import('./streamed-import-task.ts');
 const geometryTask = import('./run-geometry-task.ts');
 // In the large-file pool (import-pools.ts) the reader thread loads while this one waits for its first
-// job (read-model.ts uses it from 16 MB up; should loading fail here, the first large read starts one,
+// job (read-model.ts uses it from 64 MB up; should loading fail here, the first large read starts one,
 // or reads alone). Other threads (small files, the command line) start one only if a read asks for it.
 if (workerData?.pool === 'large-files') void import('../ifc/reader-thread.ts').then((m) => m.prewarmReaderThread(), () => undefined);
 
