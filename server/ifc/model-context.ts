@@ -233,7 +233,7 @@ export class ModelContext {
     return n;
   }
 
-  /** className() in capitals, as the readers compare classes (each class's made once, not per call). */
+  /** className() in capitals, as the readers compare classes (made once per class, not per call). */
   classUpper(id: number | undefined): string {
     const n = this.className(id);
     let u = this.upperNames.get(n);
