@@ -19,6 +19,7 @@ import type { ImportTask, ProgressMessage } from './run-import-task';
 import type { StreamedImportOutcome } from './streamed-import-task';
 import { MemberSliceStream } from './member-slice-stream';
 import { ImportPools, importPoolFor } from './import-pools';
+import { TaskClock, THREAD_START_ALLOWANCE_MS } from './task-clock';
 import type { FailureData } from './import-failure';
 import type { GeometryOutcome, GeometryTask } from './run-geometry-task';
 import type { RevisionSummary } from '@shared/api/models';
@@ -82,9 +83,12 @@ export class ImportRunner {
     const beat = setInterval(() => void heartbeat(job.id, this.owner).catch(() => undefined), Math.max(1000, this.config.imports.staleMs / 4));
     const channel = new MessageChannel();
     const slices = new MemberSliceStream(channel.port1);
+    // The limit runs from the task's first message, its first step in the thread (task-clock.ts).
+    const clock = new TaskClock(this.config.imports.timeLimitMs, THREAD_START_ALLOWANCE_MS);
     let lastReport = 0;
     let lastStatus = '';
     channel.port1.on('message', (m: ProgressMessage) => {
+      clock.begin();
       if (slices.take(m)) return;
       const now = Date.now();
       if (m.status === lastStatus && now - lastReport < 300) return;
@@ -119,7 +123,7 @@ export class ImportRunner {
       const stop = new AbortController();
       const outcome = this.pools.run<StreamedImportOutcome>(importPoolFor(job.fileSize, kind), task, {
         transferList: [channel.port2] as never,
-        signal: AbortSignal.any([AbortSignal.timeout(this.config.imports.timeLimitMs), stop.signal]),
+        signal: AbortSignal.any([clock.signal, stop.signal]),
       });
       outcome.then((o) => !o.ok && slices.fail(new TaskFailed(o.failure)), (err) => slices.fail(err));
       let kept: boolean;
@@ -146,7 +150,9 @@ export class ImportRunner {
       // While shutting down, leave the job claimed: its heartbeat goes stale and a running process takes it over.
       if (this.stopping) return;
       const e = err as Error & { name?: string; code?: string };
-      if (e?.name === 'AbortError' || e?.name === 'TimeoutError') {
+      if (clock.expired === 'not-begun') {
+        await failJob(job.id, this.owner, 'import.worker-lost', `The import could not start: no import thread was ready within ${THREAD_START_ALLOWANCE_MS / 1000} s. Try again; if it happens again, the server needs attention.`);
+      } else if (clock.expired === 'limit' || e?.name === 'AbortError' || e?.name === 'TimeoutError') {
         await failJob(job.id, this.owner, 'import.time-limit', `The import took longer than the ${Math.round(this.config.imports.timeLimitMs / 1000)} s limit and was stopped. The file may be malformed; try exporting it again.`);
       } else if (/ERR_WORKER_OUT_OF_MEMORY|out of memory/i.test(`${e?.code} ${e?.message}`)) {
         await failJob(job.id, this.owner, 'import.memory-limit', `The import needed more memory than the ${this.config.imports.memoryLimitMb} MB limit and was stopped.`);
@@ -156,6 +162,7 @@ export class ImportRunner {
       }
     } finally {
       clearInterval(beat);
+      clock.dispose();
       channel.port1.close();
       await local?.release().catch(() => undefined);
     }
