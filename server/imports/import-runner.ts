@@ -152,7 +152,7 @@ export class ImportRunner {
       const e = err as Error & { name?: string; code?: string };
       if (clock.expired === 'not-begun') {
         await failJob(job.id, this.owner, 'import.worker-lost', `The import could not start: no import thread was ready within ${THREAD_START_ALLOWANCE_MS / 1000} s. Try again; if it happens again, the server needs attention.`);
-      } else if (clock.expired === 'limit' || e?.name === 'AbortError' || e?.name === 'TimeoutError') {
+      } else if (clock.expired === 'limit') {
         await failJob(job.id, this.owner, 'import.time-limit', `The import took longer than the ${Math.round(this.config.imports.timeLimitMs / 1000)} s limit and was stopped. The file may be malformed; try exporting it again.`);
       } else if (/ERR_WORKER_OUT_OF_MEMORY|out of memory/i.test(`${e?.code} ${e?.message}`)) {
         await failJob(job.id, this.owner, 'import.memory-limit', `The import needed more memory than the ${this.config.imports.memoryLimitMb} MB limit and was stopped.`);

@@ -17,7 +17,7 @@ export class TaskClock {
   /** Both in milliseconds: the task's own limit, and how long a thread may take to begin it. */
   constructor(
     private readonly limitMs: number,
-    readonly startAllowanceMs: number,
+    startAllowanceMs: number,
   ) {
     this.timer = setTimeout(() => this.expire('not-begun'), startAllowanceMs);
   }
